@@ -6,3 +6,4 @@ export { multiply, multiplyTransposed, multiplyVector } from './product.js';
 export * from './elimination.js';
 export * from './kernel.js';
 export * from './solve.js';
+export * from './basis.js';
