@@ -20,7 +20,6 @@ export function parsePolynomial(poly: string, vars: 'x' | 'xy', text = poly, bas
     while (i < poly.length && poly[i] === ' ') i++;
   };
   const exponent = (): number => {
-    skip();
     if (poly[i] !== '^') return 1;
     i++;
     skip();
@@ -46,12 +45,12 @@ export function parsePolynomial(poly: string, vars: 'x' | 'xy', text = poly, bas
           if (v === 'x') mono.x += e;
           else mono.y += e;
           factors++;
+          if (poly[i] === 'x' || poly[i] === 'y') continue; // juxtaposed product such as x^2y
           skip();
           if (poly[i] === '*') {
             i++;
             continue;
           }
-          if (poly[i] === 'x' || poly[i] === 'y') continue;
           break;
         }
         err(factors === 0 ? `expected a term: 1 or ${vars === 'x' ? 'x^e' : 'x^i, y^j or a product of them'}` : 'expected a variable after "*"');
