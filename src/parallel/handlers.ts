@@ -1,3 +1,6 @@
+import { grayChunk } from '../search/gray.js';
+import { isdChunk } from '../search/isd.js';
+
 /**
  * Task kinds a worker can run, each a pure function of a structured-clonable payload.
  * Add one line per kind; the functions live with their stage (search, decode, ...), not here.
@@ -6,4 +9,6 @@ export type TaskHandler = (payload: never) => unknown;
 
 export const handlers: Record<string, TaskHandler> = {
   echo: ((p: unknown) => p) as TaskHandler,
+  'search.gray': grayChunk as TaskHandler,
+  'search.isd': isdChunk as TaskHandler,
 };

@@ -1,0 +1,278 @@
+import { type BitMatrix, packedSupport } from '../gf2/bitmatrix.js';
+import { rowBasis } from '../gf2/elimination.js';
+import { packedWeight } from '../gf2/popcount.js';
+import type { ShiftSymmetry } from '../codes/families/types.js';
+import type { TaskPool } from '../parallel/pool.js';
+import { runOrdered } from '../parallel/pool.js';
+import type { GrayChunkResult, GrayChunkTask } from './gray.js';
+import type { IsdChunkResult, IsdChunkTask, IsdSettings } from './isd.js';
+import { groupElements, permuteWord } from './orbits.js';
+import { EXHAUSTIVE_BUDGET, missProbability, planSearch, type SearchPlan } from './plan.js';
+import { systematicDensity } from './isd.js';
+import { ORIGINAL_ROW, WordStore } from './store.js';
+
+/** The row space to search: rowspace(h), with h's own rows marked as original. */
+export interface SearchTarget {
+  readonly side: string;
+  readonly h: BitMatrix;
+  readonly symmetry?: ShiftSymmetry;
+}
+
+export interface SearchOptions {
+  readonly maxWeight: number;
+  readonly method: 'auto' | 'exhaustive' | 'isd';
+  readonly seed: string | number;
+  /** Information sets to visit (ISD); rounded up to whole chunks. */
+  readonly iterations?: number;
+  readonly targetMiss?: number;
+  readonly maxWords: number;
+  /** Start numbering seed streams here (resume uses fresh streams). */
+  readonly firstStream?: number;
+  /** Words found earlier (resume), packed, and the iterations they took. */
+  readonly previous?: { words: Uint32Array[]; iterations: number };
+}
+
+/** Hooks into the outside world, given by the caller (CLI): the pool, the clock, progress and output. */
+export interface SearchHooks {
+  readonly pool: TaskPool;
+  readonly shouldStop?: () => boolean;
+  /** Called after every merged chunk with the words it added (packed), in deterministic order. */
+  readonly onNewWords?: (words: Uint32Array[], state: SearchProgress) => void;
+}
+
+export interface SearchProgress {
+  readonly iterations: number;
+  readonly nextStream: number;
+  readonly counts: Record<string, number>;
+  readonly missProbability: Record<string, number>;
+  readonly complete: boolean;
+}
+
+export interface SearchResult {
+  side: string;
+  maxWeight: number;
+  method: 'exhaustive' | 'isd';
+  plan: SearchPlan;
+  seed: string | number;
+  iterations: number;
+  counts: Record<string, number>;
+  orbits: Record<string, number>;
+  missProbability: Record<string, number>;
+  complete: boolean;
+  /** Why the search stopped: finished, target, iterations, time, interrupted, max-words. */
+  stopReason: string;
+  n: number;
+  rank: number;
+  streams: { first: number; next: number };
+  wordCount: number;
+  /** Supports, sorted by weight then lexicographically. */
+  words: number[][];
+  /** Indices into `words` of rows of the original matrix. */
+  original: number[];
+  truncated: boolean;
+}
+
+/** Default when no stop rule is given: miss probability 1e-6 at every weight ≤ W. */
+export const DEFAULT_TARGET_MISS = 1e-6;
+
+export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks: SearchHooks): Promise<SearchResult> {
+  const h = target.h;
+  const n = h.cols;
+  const s = h.stride;
+  const basis = rowBasis(h);
+  const k = basis.rank;
+  const W = opts.maxWeight;
+  const store = new WordStore(n, 1024);
+  const orbitOf = new Map<number, number>(); // weight → orbit count
+  const elements = target.symmetry ? groupElements(target.symmetry, n) : null;
+  const image = new Uint32Array(s);
+  let truncated = false;
+
+  /** Insert a word and (with symmetry) its orbit; returns the words that were new. */
+  const insert = (v: Uint32Array, flag: number, fresh: Uint32Array[]): void => {
+    if (store.has(v)) return;
+    if (store.size >= opts.maxWords) {
+      truncated = true;
+      return;
+    }
+    const w = packedWeight(v, 0, s);
+    orbitOf.set(w, (orbitOf.get(w) ?? 0) + 1);
+    if (!elements) {
+      store.add(v, 0, flag);
+      fresh.push(v.slice());
+      return;
+    }
+    for (const e of elements) {
+      permuteWord(e, v, image, s);
+      if (store.add(image, 0, flag) >= 0) fresh.push(image.slice());
+    }
+  };
+
+  const seedWords: Uint32Array[] = [];
+  for (let r = 0; r < h.rows; r++) {
+    const row = h.data.subarray(r * s, (r + 1) * s);
+    const w = packedWeight(row, 0, s);
+    if (w > 0 && w <= W) insert(row.slice(), 0, seedWords);
+  }
+  // mark the rows themselves (not the other members of their orbits)
+  for (let r = 0; r < h.rows; r++) {
+    const row = h.data.subarray(r * s, (r + 1) * s);
+    if (store.has(row)) store.add(row, 0, ORIGINAL_ROW);
+  }
+  let iterations = opts.previous?.iterations ?? 0;
+  for (const v of opts.previous?.words ?? []) {
+    const w = packedWeight(v, 0, s);
+    if (w > 0 && w <= W) insert(v, 0, seedWords);
+  }
+
+  const exhaustiveOnly = opts.method === 'exhaustive' || (opts.method === 'auto' && 2 ** k * s <= EXHAUSTIVE_BUDGET);
+  const probe = exhaustiveOnly ? { mean: 0.5, sparseRows: 0 } : systematicDensity(k, n, basis.reduced.data);
+  const plan = planSearch({
+    n, k, maxWeight: W, method: opts.method, targetMiss: opts.targetMiss ?? DEFAULT_TARGET_MISS, density: probe.mean, sparseRows: probe.sparseRows,
+  });
+  const firstStream = opts.firstStream ?? 0;
+  let nextStream = firstStream;
+  const counts = (): Record<string, number> => {
+    const c: Record<string, number> = {};
+    for (let w = 1; w <= W; w++) c[String(w)] = 0;
+    for (let i = 0; i < store.size; i++) c[String(store.weight(i))]! += 1;
+    return c;
+  };
+  let complete = false;
+  const misses = (): Record<string, number> => {
+    const m: Record<string, number> = {};
+    for (let w = 1; w <= W; w++) {
+      m[String(w)] = complete ? 0 : plan.method === 'isd' ? missProbability(n, k, w, plan.settings, iterations) : 1;
+    }
+    return m;
+  };
+  const progress = (): SearchProgress => ({ iterations, nextStream, counts: counts(), missProbability: misses(), complete });
+  hooks.onNewWords?.(seedWords, progress());
+
+  let stopReason = 'finished';
+  const stop = () => {
+    if (truncated) return true;
+    return hooks.shouldStop?.() ?? false;
+  };
+
+  if (plan.method === 'exhaustive') {
+    const data = basis.reduced.data;
+    let done = 0;
+    await runOrdered<GrayChunkResult>(
+      hooks.pool,
+      plan.chunks,
+      (i) => {
+        const task: GrayChunkTask = { rows: k, cols: n, basis: data, maxWeight: W, lowBits: plan.lowBits, chunk: i, maxWords: opts.maxWords };
+        return { kind: 'search.gray', payload: task };
+      },
+      (_, r) => {
+        const fresh: Uint32Array[] = [];
+        for (let j = 0; j < r.count; j++) insert(r.words.subarray(j * s, (j + 1) * s), 0, fresh);
+        if (r.overflow) truncated = true;
+        done++;
+        iterations += r.visited;
+        complete = done === plan.chunks && !truncated;
+        hooks.onNewWords?.(fresh, progress());
+      },
+      stop,
+    );
+    complete = done === plan.chunks && !truncated;
+    if (!complete) stopReason = truncated ? 'max-words' : 'interrupted';
+  } else {
+    const per = plan.chunkIterations;
+    const need = opts.iterations ?? iterationsToTarget(n, k, W, plan.settings, iterations, opts.targetMiss ?? DEFAULT_TARGET_MISS, per);
+    const chunks = Math.ceil(need / per);
+    let delivered = 0;
+    await runOrdered<IsdChunkResult>(
+      hooks.pool,
+      chunks,
+      (i) => {
+        const its = i === chunks - 1 ? need - per * (chunks - 1) : per;
+        const task: IsdChunkTask = {
+          rows: k, cols: n, generator: basis.reduced.data, maxWeight: W, settings: plan.settings,
+          seed: opts.seed, stream: firstStream + i, iterations: its, maxWords: opts.maxWords,
+        };
+        return { kind: 'search.isd', payload: task };
+      },
+      (i, r) => {
+        const fresh: Uint32Array[] = [];
+        for (let j = 0; j < r.count; j++) insert(r.words.subarray(j * s, (j + 1) * s), 0, fresh);
+        if (r.overflow) truncated = true;
+        iterations += r.iterations;
+        nextStream = firstStream + i + 1;
+        delivered++;
+        hooks.onNewWords?.(fresh, progress());
+      },
+      stop,
+    );
+    if (truncated) stopReason = 'max-words';
+    else if (delivered < chunks) stopReason = 'interrupted';
+    else stopReason = opts.iterations !== undefined ? 'iterations' : 'target';
+  }
+  if (plan.method === 'exhaustive') nextStream = firstStream;
+
+  // sorted output
+  const order = Array.from({ length: store.size }, (_, i) => i);
+  const supportsOf = order.map((i) => packedSupport(store.word(i), 0, s));
+  order.sort((a, b) => {
+    const wa = store.weight(a);
+    const wb = store.weight(b);
+    if (wa !== wb) return wa - wb;
+    const sa = supportsOf[a]!;
+    const sb = supportsOf[b]!;
+    for (let t = 0; t < sa.length; t++) if (sa[t] !== sb[t]) return sa[t]! - sb[t]!;
+    return 0;
+  });
+  const words = order.map((i) => supportsOf[i]!);
+  const original: number[] = [];
+  order.forEach((i, pos) => {
+    if (store.flag(i) & ORIGINAL_ROW) original.push(pos);
+  });
+  const orbits: Record<string, number> = {};
+  for (let w = 1; w <= W; w++) orbits[String(w)] = orbitOf.get(w) ?? 0;
+  return {
+    side: target.side,
+    maxWeight: W,
+    method: plan.method,
+    plan,
+    seed: opts.seed,
+    iterations,
+    counts: counts(),
+    orbits,
+    missProbability: misses(),
+    complete,
+    stopReason,
+    n,
+    rank: k,
+    streams: { first: firstStream, next: nextStream },
+    wordCount: store.size,
+    words,
+    original,
+    truncated,
+  };
+}
+
+/**
+ * Further information sets (a whole number of chunks) after which every weight 1..W has miss probability
+ * below target, given `done` already visited. Depends only on the code's size and the settings.
+ */
+export function iterationsToTarget(n: number, k: number, W: number, settings: IsdSettings, done: number, target: number, per: number): number {
+  const ok = (extra: number) => {
+    for (let w = 1; w <= W; w++) if (missProbability(n, k, w, settings, done + extra) >= target) return false;
+    return true;
+  };
+  if (ok(0)) return 0;
+  let hi = per;
+  while (!ok(hi)) {
+    hi *= 2;
+    if (hi > 1e12) return hi;
+  }
+  let lo = hi / 2;
+  while (hi - lo > per) {
+    const mid = Math.ceil((lo + hi) / 2 / per) * per;
+    if (mid >= hi || mid <= lo) break;
+    if (ok(mid)) hi = mid;
+    else lo = mid;
+  }
+  return Math.ceil(hi / per) * per;
+}
