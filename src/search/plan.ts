@@ -1,4 +1,5 @@
 import type { IsdSettings } from './isd.js';
+import { InputError } from '../errors.js';
 import { grayChunkCount, grayLowBits } from './gray.js';
 import { choose, leeBrickellSuccess, logChoose, segmentMissProbability, sternSuccess } from './probability.js';
 
@@ -127,11 +128,16 @@ export function planSearch(req: PlanRequest): SearchPlan {
     if (!best || total < best.total) best = { s, total, iters };
   }
   if (!best) {
-    const s: IsdSettings = { variant: 'lee-brickell', p: 2, window: 0, segment: 1 };
-    best = { s, total: Infinity, iters: Infinity };
+    throw new InputError(
+      `information-set search cannot reach weight ${W} here: a word is found only with at most 2 ones on the information set, ` +
+        `but only n − k = ${n - k} columns lie outside it; use --method exhaustive or a lower --max-weight`,
+    );
   }
   const cost = iterationCost(n, k, W, best.s, req.density);
-  const per = Math.max(1, Math.round(CHUNK_WORK / cost / best.s.segment)) * best.s.segment;
+  // chunks of about CHUNK_WORK word operations, but at least 16 of them for the planned run (parallelism)
+  const byWork = Math.max(1, Math.round(CHUNK_WORK / cost / best.s.segment));
+  const byTarget = Number.isFinite(best.iters) ? Math.max(1, Math.ceil(best.iters / 16 / best.s.segment)) : byWork;
+  const per = Math.min(byWork, byTarget) * best.s.segment;
   const name = best.s.variant === 'stern' ? `Stern p=${best.s.p} window=${best.s.window}` : `Lee–Brickell p=${best.s.p}`;
   return {
     method: 'isd',

@@ -4,6 +4,7 @@ import { packedWeight } from '../gf2/popcount.js';
 import type { ShiftSymmetry } from '../codes/families/types.js';
 import type { TaskPool } from '../parallel/pool.js';
 import { runOrdered } from '../parallel/pool.js';
+import { InputError } from '../errors.js';
 import type { GrayChunkResult, GrayChunkTask } from './gray.js';
 import type { IsdChunkResult, IsdChunkTask, IsdSettings } from './isd.js';
 import { groupElements, permuteWord } from './orbits.js';
@@ -127,8 +128,10 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
 
   const exhaustiveOnly = opts.method === 'exhaustive' || (opts.method === 'auto' && 2 ** k * s <= EXHAUSTIVE_BUDGET);
   const probe = exhaustiveOnly ? { mean: 0.5, sparseRows: 0 } : systematicDensity(k, n, basis.reduced.data);
+  // columns where every word is zero never join an information set: the analysis uses the support's size
+  const nEff = supportSize(basis.reduced);
   const plan = planSearch({
-    n, k, maxWeight: W, method: opts.method, targetMiss: opts.targetMiss ?? DEFAULT_TARGET_MISS, density: probe.mean, sparseRows: probe.sparseRows,
+    n: nEff, k, maxWeight: W, method: opts.method, targetMiss: opts.targetMiss ?? DEFAULT_TARGET_MISS, density: probe.mean, sparseRows: probe.sparseRows,
   });
   const firstStream = opts.firstStream ?? 0;
   let nextStream = firstStream;
@@ -142,7 +145,7 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
   const misses = (): Record<string, number> => {
     const m: Record<string, number> = {};
     for (let w = 1; w <= W; w++) {
-      m[String(w)] = complete ? 0 : plan.method === 'isd' ? missProbability(n, k, w, plan.settings, iterations) : 1;
+      m[String(w)] = complete ? 0 : plan.method === 'isd' ? missProbability(nEff, k, w, plan.settings, iterations) : 1;
     }
     return m;
   };
@@ -180,7 +183,7 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
     if (!complete) stopReason = truncated ? 'max-words' : 'interrupted';
   } else {
     const per = plan.chunkIterations;
-    const need = opts.iterations ?? iterationsToTarget(n, k, W, plan.settings, iterations, opts.targetMiss ?? DEFAULT_TARGET_MISS, per);
+    const need = opts.iterations ?? iterationsToTarget(nEff, k, W, plan.settings, iterations, opts.targetMiss ?? DEFAULT_TARGET_MISS, per);
     const chunks = Math.ceil(need / per);
     let delivered = 0;
     await runOrdered<IsdChunkResult>(
@@ -265,7 +268,7 @@ export function iterationsToTarget(n: number, k: number, W: number, settings: Is
   let hi = per;
   while (!ok(hi)) {
     hi *= 2;
-    if (hi > 1e12) return hi;
+    if (hi > 1e12) throw new InputError(`no number of information sets brings the miss probability below ${target} at every weight ≤ ${W}`);
   }
   let lo = hi / 2;
   while (hi - lo > per) {
@@ -275,4 +278,11 @@ export function iterationsToTarget(n: number, k: number, W: number, settings: Is
     else lo = mid;
   }
   return Math.ceil(hi / per) * per;
+}
+
+/** Number of columns on which some row of m is nonzero. */
+export function supportSize(m: BitMatrix): number {
+  const any = new Uint32Array(m.stride);
+  for (let r = 0; r < m.rows; r++) for (let x = 0; x < m.stride; x++) any[x]! |= m.data[r * m.stride + x]!;
+  return packedWeight(any, 0, m.stride);
 }
