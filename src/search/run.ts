@@ -128,7 +128,7 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
 
   const exhaustiveOnly = opts.method === 'exhaustive' || (opts.method === 'auto' && 2 ** k * s <= EXHAUSTIVE_BUDGET);
   const probe = exhaustiveOnly ? { mean: 0.5, sparseRows: 0 } : systematicDensity(k, n, basis.reduced.data);
-  // columns where every word is zero never join an information set: the analysis uses the support's size
+  // zero and repeated columns narrow the information sets: the analysis uses the distinct columns
   const nEff = supportSize(basis.reduced);
   const plan = planSearch({
     n: nEff, k, maxWeight: W, method: opts.method, targetMiss: opts.targetMiss ?? DEFAULT_TARGET_MISS, density: probe.mean, sparseRows: probe.sparseRows,
@@ -280,9 +280,17 @@ export function iterationsToTarget(n: number, k: number, W: number, settings: Is
   return Math.ceil(hi / per) * per;
 }
 
-/** Number of columns on which some row of m is nonzero. */
+/**
+ * Number of distinct nonzero columns of m. Zero columns never join an information set, and of a group of
+ * identical columns at most one does, so the uniform-information-set analysis is run on this length.
+ */
 export function supportSize(m: BitMatrix): number {
-  const any = new Uint32Array(m.stride);
-  for (let r = 0; r < m.rows; r++) for (let x = 0; x < m.stride; x++) any[x]! |= m.data[r * m.stride + x]!;
-  return packedWeight(any, 0, m.stride);
+  const seen = new Set<string>();
+  const col: number[] = [];
+  for (let c = 0; c < m.cols; c++) {
+    col.length = 0;
+    for (let r = 0; r < m.rows; r++) if ((m.data[r * m.stride + (c >>> 5)]! >>> (c & 31)) & 1) col.push(r);
+    if (col.length > 0) seen.add(col.join(','));
+  }
+  return seen.size;
 }
