@@ -113,3 +113,47 @@ export function readWordsFile(path: string): Map<string, SideRecord> {
   for (const [side, rec] of sides) if (!rec.header) throw new FormatError(path, 1, `no header for side ${side}`);
   return sides;
 }
+
+/**
+ * Candidate words for conditioning from a file: a search result (`search --json`, one side or {"x","z"}),
+ * or a words file written by `search --out`. Returns side → supports.
+ */
+export function readCandidateWords(path: string): Map<string, number[][]> {
+  let text: string;
+  try {
+    text = readFileSync(path, 'utf8');
+  } catch {
+    throw new InputError(`${path}: cannot read the words file`);
+  }
+  const trimmed = text.trimStart();
+  const firstLine = trimmed.split('\n', 1)[0] ?? '';
+  let whole: unknown = undefined;
+  if (trimmed.startsWith('{')) {
+    try {
+      whole = JSON.parse(text);
+    } catch {
+      whole = undefined; // JSON lines: one object per line
+    }
+  }
+  if (whole === undefined) {
+    if (!firstLine.startsWith('{')) throw new FormatError(path, 1, 'expected a search result (JSON) or a words file (JSON lines)');
+    const sides = readWordsFile(path);
+    return new Map([...sides].map(([side, rec]) => [side, rec.words]));
+  }
+  const out = new Map<string, number[][]>();
+  const take = (side: string, obj: unknown) => {
+    const words = (obj as { words?: unknown }).words;
+    if (!Array.isArray(words)) throw new FormatError(path, 1, `side ${side}: expected a "words" list of supports`);
+    words.forEach((w, i) => {
+      if (!Array.isArray(w) || !w.every((c) => Number.isInteger(c) && c >= 0)) throw new FormatError(path, 1, `side ${side}: word ${i + 1} is not a list of column indices`);
+    });
+    out.set(side, words as number[][]);
+  };
+  const o = whole as Record<string, unknown>;
+  if (typeof o['side'] === 'string') take(o['side'] as string, o);
+  else {
+    for (const side of ['x', 'z', 'h']) if (o[side] && typeof o[side] === 'object') take(side, o[side]);
+    if (out.size === 0) throw new FormatError(path, 1, 'no "words" found (expected the output of search --json)');
+  }
+  return out;
+}
