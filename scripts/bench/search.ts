@@ -49,8 +49,8 @@ function cRate(b: ReturnType<typeof rowBasis>, n: number, W: number, iterations:
 
 for (const [name, { spec, W }] of Object.entries(CODES)) {
   const h = hx(spec);
-  const its = quick ? 50 : 300;
-  kernelRate(h, W, 10); // warm up
+  const its = quick ? 300 : 1500;
+  kernelRate(h, W, 300); // warm up the JIT before timing
   const js = kernelRate(h, W, its);
   const c = cRate(js.b, h.cols, W, its);
   console.log(`${name} rowspace(HX), W=${W}, Lee–Brickell p=2 fresh sets, one thread: ${js.its.toFixed(0)} information sets/s, ${js.words.toFixed(0)} new words/s (chunk-local)` +
