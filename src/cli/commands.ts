@@ -4,6 +4,7 @@ import { registerMake } from './make.js';
 import { registerSearch } from './search.js';
 import { registerCondition } from './condition.js';
 import { registerTrim } from './trim.js';
+import { registerMerge } from './merge.js';
 
 /** Every command, one file each. Add a line here when a command is added. */
 export function registerCommands(program: Command): void {
@@ -12,4 +13,5 @@ export function registerCommands(program: Command): void {
   registerSearch(program);
   registerCondition(program);
   registerTrim(program);
+  registerMerge(program);
 }

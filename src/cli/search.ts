@@ -27,6 +27,7 @@ interface SearchCliOptions extends CodeOptions {
   symmetry?: string;
   orbits?: string;
   progress?: boolean;
+  shard?: string;
 }
 
 export interface SearchSide {
@@ -79,6 +80,7 @@ export function registerSearch(program: Command): void {
     .option('--orbits <mode>', 'auto (use the family symmetry) or off', 'auto')
     .option('--out <file>', 'stream words to FILE as JSON lines (resumable)')
     .option('--resume <file>', 'continue a search from its words file')
+    .option('--shard <i/n>', 'run shard I of N (0-based): a disjoint share of the chunks; combine with merge')
     .option('--progress', 'progress on stderr even when it is not a terminal')
     .option('--json', 'print one JSON object')
     .action(async (o: SearchCliOptions) => {
@@ -119,6 +121,8 @@ async function searchSides(sides: SearchSide[], o: SearchCliOptions): Promise<Se
   const iterations = o.iterations !== undefined ? intOption('iterations', o.iterations, 0, 1) : undefined;
   const targetMiss = o.targetMiss !== undefined ? floatOption('target-miss', o.targetMiss, 1e-6, 1e-300, 1) : undefined;
   const maxWords = intOption('max-words', o.maxWords, 2_000_000, 1);
+  const shard = parseShard(o.shard);
+  if (shard && o.resume) throw new InputError('--shard and --resume cannot be combined: resume each shard from its own --out file without --shard');
   const resumed = o.resume ? readWordsFile(o.resume) : null;
   const outPath = o.out ?? o.resume;
   const control: RunControl = await startRun({
@@ -158,10 +162,11 @@ async function searchSides(sides: SearchSide[], o: SearchCliOptions): Promise<Se
       };
       const r = await runSearch(
         { side: s.side, h: s.h, symmetry: s.symmetry },
-        { maxWeight: W, method, seed, iterations, targetMiss, maxWords, firstStream: previous?.nextStream, previous },
+        { maxWeight: W, method, seed, iterations, targetMiss, maxWords, firstStream: previous?.nextStream, previous, shard },
         { pool: control.pool, shouldStop: control.shouldStop, onNewWords },
       );
       control.endLine();
+      (r as SearchResult & { codeHash: string }).codeHash = codeHash;
       if (r.truncated) process.stderr.write(`overcheck: side ${s.side}: stopped at --max-words ${maxWords}; raise it or lower --max-weight\n`);
       results.push(r);
       finalLines.push(headerFor(r.plan));
@@ -200,4 +205,12 @@ function checkResume(prev: SideRecord, s: SearchSide, codeHash: string, W: numbe
     return v;
   });
   return { words, iterations: prev.complete ? prev.iterations : prev.iterations, nextStream: prev.nextStream };
+}
+
+/** `I/N` with 0 ≤ I < N. */
+export function parseShard(text: string | undefined): { index: number; count: number } | undefined {
+  if (text === undefined) return undefined;
+  const m = /^(\d+)\/(\d+)$/.exec(text.trim());
+  if (!m || Number(m[2]) < 1 || Number(m[1]) >= Number(m[2])) throw new InputError(`--shard: expected I/N with 0 ≤ I < N, found "${text}"`);
+  return { index: Number(m[1]), count: Number(m[2]) };
 }

@@ -29,6 +29,8 @@ export interface SearchOptions {
   readonly maxWords: number;
   /** Start numbering seed streams here (resume uses fresh streams). */
   readonly firstStream?: number;
+  /** Run only the chunks with id ≡ index (mod count); merging all shards gives the unsharded result. */
+  readonly shard?: { index: number; count: number };
   /** Words found earlier (resume), packed, and the iterations they took. */
   readonly previous?: { words: Uint32Array[]; iterations: number };
 }
@@ -64,7 +66,11 @@ export interface SearchResult {
   stopReason: string;
   n: number;
   rank: number;
+  /** Distinct nonzero columns of the row space: the length the miss probabilities are computed for. */
+  distinctColumns: number;
   streams: { first: number; next: number };
+  /** Chunk bookkeeping: how many the whole run has, how many this process did, and its shard. */
+  chunks: { total: number; done: number; shard: { index: number; count: number } };
   wordCount: number;
   /** Supports, sorted by weight then lexicographically. */
   words: number[][];
@@ -158,61 +164,78 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
     return hooks.shouldStop?.() ?? false;
   };
 
+  // chunk ids this run covers: firstStream.. (a resumed run goes on where the saved one stopped), and with a
+  // shard I/N only the ids ≡ I (mod N), so N shards together do exactly the chunks of one unsharded run
+  const shard = opts.shard ?? { index: 0, count: 1 };
+  const chunkIds = (total: number): number[] => {
+    const ids: number[] = [];
+    for (let c = firstStream; c < total; c++) if (c % shard.count === shard.index) ids.push(c);
+    return ids;
+  };
+  let totalChunks: number;
+  let ids: number[];
+  let delivered = 0;
   if (plan.method === 'exhaustive') {
     const data = basis.reduced.data;
-    let done = 0;
+    totalChunks = plan.chunks;
+    ids = chunkIds(totalChunks);
     await runOrdered<GrayChunkResult>(
       hooks.pool,
-      plan.chunks,
-      (i) => {
-        const task: GrayChunkTask = { rows: k, cols: n, basis: data, maxWeight: W, lowBits: plan.lowBits, chunk: i, maxWords: opts.maxWords };
+      ids.length,
+      (t) => {
+        const task: GrayChunkTask = { rows: k, cols: n, basis: data, maxWeight: W, lowBits: plan.lowBits, chunk: ids[t]!, maxWords: opts.maxWords };
         return { kind: 'search.gray', payload: task };
       },
-      (_, r) => {
+      (t, r) => {
         const fresh: Uint32Array[] = [];
         for (let j = 0; j < r.count; j++) insert(r.words.subarray(j * s, (j + 1) * s), 0, fresh);
         if (r.overflow) truncated = true;
-        done++;
+        delivered++;
         iterations += r.visited;
-        complete = done === plan.chunks && !truncated;
+        nextStream = ids[t]! + 1;
+        complete = shard.count === 1 && nextStream === totalChunks && !truncated;
         hooks.onNewWords?.(fresh, progress());
       },
       stop,
     );
-    complete = done === plan.chunks && !truncated;
-    if (!complete) stopReason = truncated ? 'max-words' : 'interrupted';
+    if (ids.length === 0) nextStream = totalChunks;
+    complete = shard.count === 1 && delivered === ids.length && !truncated;
+    stopReason = truncated ? 'max-words' : delivered < ids.length ? 'interrupted' : 'finished';
   } else {
     const per = plan.chunkIterations;
+    // the whole run's length: fixed by --iterations or by the target (counting what a resumed file already did)
     const need = opts.iterations ?? iterationsToTarget(nEff, k, W, plan.settings, iterations, opts.targetMiss ?? DEFAULT_TARGET_MISS, per);
-    const chunks = Math.ceil(need / per);
-    let delivered = 0;
+    const lastLen = need - per * (Math.ceil(need / per) - 1);
+    totalChunks = firstStream + Math.ceil(need / per);
+    ids = chunkIds(totalChunks);
     await runOrdered<IsdChunkResult>(
       hooks.pool,
-      chunks,
-      (i) => {
-        const its = i === chunks - 1 ? need - per * (chunks - 1) : per;
+      ids.length,
+      (t) => {
+        const c = ids[t]!;
+        const its = c === totalChunks - 1 ? lastLen : per;
         const task: IsdChunkTask = {
           rows: k, cols: n, generator: basis.reduced.data, maxWeight: W, settings: plan.settings,
-          seed: opts.seed, stream: firstStream + i, iterations: its, maxWords: opts.maxWords,
+          seed: opts.seed, stream: c, iterations: its, maxWords: opts.maxWords,
         };
         return { kind: 'search.isd', payload: task };
       },
-      (i, r) => {
+      (t, r) => {
         const fresh: Uint32Array[] = [];
         for (let j = 0; j < r.count; j++) insert(r.words.subarray(j * s, (j + 1) * s), 0, fresh);
         if (r.overflow) truncated = true;
         iterations += r.iterations;
-        nextStream = firstStream + i + 1;
+        nextStream = ids[t]! + 1;
         delivered++;
         hooks.onNewWords?.(fresh, progress());
       },
       stop,
     );
+    if (ids.length === 0) nextStream = totalChunks;
     if (truncated) stopReason = 'max-words';
-    else if (delivered < chunks) stopReason = 'interrupted';
+    else if (delivered < ids.length) stopReason = 'interrupted';
     else stopReason = opts.iterations !== undefined ? 'iterations' : 'target';
   }
-  if (plan.method === 'exhaustive') nextStream = firstStream;
 
   // sorted output
   const order = Array.from({ length: store.size }, (_, i) => i);
@@ -247,7 +270,9 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
     stopReason,
     n,
     rank: k,
+    distinctColumns: nEff,
     streams: { first: firstStream, next: nextStream },
+    chunks: { total: totalChunks, done: delivered, shard },
     wordCount: store.size,
     words,
     original,
