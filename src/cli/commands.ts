@@ -1,6 +1,7 @@
 import type { Command } from 'commander';
 import { registerInfo } from './info.js';
 import { registerMake } from './make.js';
+import { registerReport } from './report.js';
 import { registerSearch } from './search.js';
 
 /** Every command, one file each. Add a line here when a command is added. */
@@ -8,4 +9,5 @@ export function registerCommands(program: Command): void {
   registerInfo(program);
   registerMake(program);
   registerSearch(program);
+  registerReport(program);
 }
