@@ -1,6 +1,7 @@
 import type { Command } from 'commander';
 import { registerInfo } from './info.js';
 import { registerMake } from './make.js';
+import { registerReport } from './report.js';
 import { registerSearch } from './search.js';
 import { registerCondition } from './condition.js';
 import { registerTrim } from './trim.js';
@@ -14,4 +15,5 @@ export function registerCommands(program: Command): void {
   registerCondition(program);
   registerTrim(program);
   registerMerge(program);
+  registerReport(program);
 }
