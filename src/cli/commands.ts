@@ -6,6 +6,7 @@ import { registerSearch } from './search.js';
 import { registerCondition } from './condition.js';
 import { registerTrim } from './trim.js';
 import { registerMerge } from './merge.js';
+import { registerRun } from './run.js';
 
 /** Every command, one file each. Add a line here when a command is added. */
 export function registerCommands(program: Command): void {
@@ -16,4 +17,5 @@ export function registerCommands(program: Command): void {
   registerTrim(program);
   registerMerge(program);
   registerReport(program);
+  registerRun(program);
 }
