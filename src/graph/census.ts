@@ -79,12 +79,12 @@ export function cycleCensus(m: BitMatrix, maxLength = 8, options: CensusOptions 
   const quotientLengths: number[] = [];
   for (let L = options.quotientOnly ? 4 : 10; L <= maxLength; L += 2) quotientLengths.push(L);
   if (quotientLengths.length > 0) {
+    // plan every length first, so that a refusal comes before any long computation
     const target = homTarget(g);
-    for (const L of quotientLengths) {
-      const plans = targetPlans(target, L / 2);
-      const w = quotientWork(plans);
-      if (w > limit) throw new InputError(tooMuchWork(L, w, limit, g));
-      work += w;
+    const planned = quotientLengths.map((L) => ({ L, plans: targetPlans(target, L / 2) }));
+    for (const { plans } of planned) work += quotientWork(plans);
+    if (work > limit) throw new InputError(tooMuchWork(quotientLengths, work, limit, g));
+    for (const { L, plans } of planned) {
       cycles.set(L, quotientCycleCount(target, L / 2, plans));
       methods.set(L, 'quotient-homomorphism');
     }
@@ -123,9 +123,10 @@ export function cycleCensus(m: BitMatrix, maxLength = 8, options: CensusOptions 
   };
 }
 
-function tooMuchWork(L: number, work: number, limit: number, g: SidedGraph): string {
+function tooMuchWork(lengths: number[], work: number, limit: number, g: SidedGraph): string {
+  const what = `exact ${lengths.join(', ')}-cycle counting`;
   if (!Number.isFinite(work)) {
-    return `exact ${L}-cycle counting needs intermediate tables too large for this graph (sides of ${g.s} and ${g.t} nodes); use a maximum length of 8`;
+    return `${what} needs intermediate tables too large for this graph (sides of ${g.s} and ${g.t} nodes); use a maximum length of 8`;
   }
-  return `exact ${L}-cycle counting would take about ${work.toExponential(1)} steps on this graph (sides of ${g.s} and ${g.t} nodes), above the limit of ${limit.toExponential(1)}; use a smaller maximum length`;
+  return `${what} would take about ${work.toExponential(1)} steps on this graph (sides of ${g.s} and ${g.t} nodes), above the limit of ${limit.toExponential(1)} (--work-limit); use a smaller maximum length`;
 }

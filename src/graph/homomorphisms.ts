@@ -101,7 +101,7 @@ interface Factor {
   edge: boolean;
 }
 
-type Source = 'incidence' | 'S1' | 'S2' | 'S3' | 'T1' | 'T2' | 'T3';
+type Source = 'S1' | 'S2' | 'S3' | 'T1' | 'T2' | 'T3';
 
 /**
  * A pattern prepared for elimination. Variables are the pattern's nodes: S-nodes 0..sCount−1 (domain s),
