@@ -1,4 +1,5 @@
 import type { Command } from 'commander';
+import { registerCycles } from './cycles.js';
 import { registerInfo } from './info.js';
 import { registerMake } from './make.js';
 import { registerReport } from './report.js';
@@ -18,4 +19,5 @@ export function registerCommands(program: Command): void {
   registerMerge(program);
   registerReport(program);
   registerRun(program);
+  registerCycles(program);
 }
