@@ -3,6 +3,8 @@ import { existsSync, mkdirSync, readFileSync } from 'node:fs';
 import { dirname, isAbsolute, join, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { summarizeCode } from '../codes/css.js';
+import { type BitMatrix, vstack } from '../gf2/bitmatrix.js';
+import { readMatrixFile, type MatrixFormat } from '../formats/index.js';
 import { parseBudget } from '../condition/budget.js';
 import { InputError } from '../errors.js';
 import { readJsonFile, writeTextFileAtomic } from '../formats/json-file.js';
@@ -145,7 +147,17 @@ export function registerRun(program: Command): void {
           const c = condition.sides[s]!;
           say(`condition ${s}: +${c.added} rows, ${c.before.rows}→${c.after.rows} rows, 4-cycles ${c.before.cycles['4']}→${c.after.cycles['4']}`);
         }
-        // 4. the run bundle and the report
+        // 4. cycle census of the original and the conditioned matrices (X, Z and joint graphs)
+        const { cycleCensus, censusJson, structureSummary, tannerGraph } = await import('../graph/index.js');
+        const conditioned = readConditioned(bundlePrefix, sides, config.condition.format, input.code.hx, input.code.hz);
+        const census = (hx: BitMatrix, hz: BitMatrix) => {
+          const one = (m: BitMatrix) => censusJson(cycleCensus(m, config.cycles.maxLength), structureSummary(tannerGraph(m)));
+          return { maxLength: config.cycles.maxLength, x: one(hx), z: one(hz), joint: { ...one(vstack(hx, hz)), checks: { x: hx.rows, z: hz.rows } } };
+        };
+        const cycles = { before: census(input.code.hx, input.code.hz), after: census(conditioned.hx, conditioned.hz) };
+        ck.put('cycles', cycles);
+        say(`cycles: joint graph 4-cycles ${cycles.before.joint.cycles['4']} → ${cycles.after.joint.cycles['4']}, girth ${cycles.before.joint.girth} → ${cycles.after.joint.girth}`);
+        // 5. the run bundle and the report
         const provenance = JSON.parse(readFileSync(`${bundlePrefix}.provenance.json`, 'utf8'));
         const bundle = {
           kind: 'overcheck-run',
@@ -154,6 +166,7 @@ export function registerRun(program: Command): void {
           info,
           search,
           condition,
+          cycles,
           provenance,
           notes: [] as string[],
         };
@@ -187,3 +200,11 @@ function safeResume(path: string): string | undefined {
 
 export { DEFAULT_CONFIG };
 export type { RunConfig };
+
+/** The exported matrices of the bundle (sides not conditioned keep the original matrix). */
+function readConditioned(prefix: string, sides: string[], format: MatrixFormat, hx: BitMatrix, hz: BitMatrix): { hx: BitMatrix; hz: BitMatrix } {
+  return {
+    hx: sides.includes('x') ? readMatrixFile(`${prefix}.hx.${format}`) : hx,
+    hz: sides.includes('z') ? readMatrixFile(`${prefix}.hz.${format}`) : hz,
+  };
+}
