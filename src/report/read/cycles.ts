@@ -14,10 +14,13 @@ export function looksLikeCensus(v: unknown): v is JsonObject {
   return numericEntries(v['cycles']).some(([, c]) => cycleCount(c) !== undefined);
 }
 
-/** Censuses per graph: {x: census, z: census, joint: census} (any subset). */
+/**
+ * Censuses per graph: {x: census, z: census, joint: census} (any subset), as `cycles --json` prints them for a
+ * CSS code, with scalar metadata such as "input" and "maxLength" beside them.
+ */
 function looksLikePerGraph(v: unknown): v is JsonObject {
   if (!isObject(v)) return false;
-  const values = Object.values(v);
+  const values = Object.values(v).filter(isObject);
   return values.length > 0 && values.every(looksLikeCensus);
 }
 
@@ -62,7 +65,7 @@ function readCensus(label: string, v: JsonObject): CensusView {
 /** One census or a per-graph set, labelled `prefix` (or `prefix · X`; with no prefix "matrix", or X). */
 function readOne(prefix: string, v: JsonObject): CensusView[] {
   if (looksLikeCensus(v)) return [readCensus(prefix || 'matrix', v)];
-  return Object.entries(v).map(([k, c]) => {
+  return Object.entries(v).filter(([, c]) => looksLikeCensus(c)).map(([k, c]) => {
     const name = GRAPH_NAMES[k] ?? k;
     return readCensus(prefix ? `${prefix} · ${name}` : name, c as JsonObject);
   });
