@@ -165,12 +165,15 @@ export function isdChunk(task: IsdChunkTask): IsdChunkResult {
   const winCols = new Int32Array(Math.max(0, window));
   const sternBuf = variant === 'stern' ? new SternBuffers(n, k, p, window) : null;
   const proj = new Int32Array(k);
+  const first = new Uint32Array(k);
   const half = new Int32Array(k);
   let it = 0;
   for (; it < task.iterations && !overflow; it++) {
     if (it % segment === 0) st.fresh();
     else st.swap();
     if (variant === 'lee-brickell') {
+      // word 0 of every row, contiguous: most pairs are rejected on it alone (inline popcount, no calls)
+      for (let a = 0; a < k; a++) first[a] = m[a * s]!;
       for (let a = 0; a < k; a++) {
         const ao = a * s;
         let wt = 0;
@@ -180,10 +183,16 @@ export function isdChunk(task: IsdChunkTask): IsdChunkResult {
           take();
         }
         if (p < 2) continue;
+        const a0 = first[a]!;
         for (let b = a + 1; b < k; b++) {
+          let y = a0 ^ first[b]!;
+          y = y - ((y >>> 1) & 0x55555555);
+          y = (y & 0x33333333) + ((y >>> 2) & 0x33333333);
+          y = (y + (y >>> 4)) & 0x0f0f0f0f;
+          let w2 = Math.imul(y, 0x01010101) >>> 24;
+          if (w2 > W) continue;
           const bo = b * s;
-          let w2 = 0;
-          for (let x = 0; x < s && w2 <= W; x++) w2 += popcount32(m[ao + x]! ^ m[bo + x]!);
+          for (let x = 1; x < s && w2 <= W; x++) w2 += popcount32(m[ao + x]! ^ m[bo + x]!);
           if (w2 <= W) {
             for (let x = 0; x < s; x++) tmp[x] = m[ao + x]! ^ m[bo + x]!;
             take();
