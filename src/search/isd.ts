@@ -165,15 +165,18 @@ export function isdChunk(task: IsdChunkTask): IsdChunkResult {
   const winCols = new Int32Array(Math.max(0, window));
   const sternBuf = variant === 'stern' ? new SternBuffers(n, k, p, window) : null;
   const proj = new Int32Array(k);
-  const first = new Uint32Array(k);
+  const first = new Uint32Array(2 * k);
   const half = new Int32Array(k);
   let it = 0;
   for (; it < task.iterations && !overflow; it++) {
     if (it % segment === 0) st.fresh();
     else st.swap();
     if (variant === 'lee-brickell') {
-      // word 0 of every row, contiguous: most pairs are rejected on it alone (inline popcount, no calls)
-      for (let a = 0; a < k; a++) first[a] = m[a * s]!;
+      // words 0 and 1 of every row, contiguous: most pairs are rejected on them alone (inline popcount, no calls)
+      for (let a = 0; a < k; a++) {
+        first[2 * a] = m[a * s]!;
+        first[2 * a + 1] = s > 1 ? m[a * s + 1]! : 0;
+      }
       for (let a = 0; a < k; a++) {
         const ao = a * s;
         let wt = 0;
@@ -183,16 +186,21 @@ export function isdChunk(task: IsdChunkTask): IsdChunkResult {
           take();
         }
         if (p < 2) continue;
-        const a0 = first[a]!;
+        const a0 = first[2 * a]!;
+        const a1 = first[2 * a + 1]!;
         for (let b = a + 1; b < k; b++) {
-          let y = a0 ^ first[b]!;
+          let y = a0 ^ first[2 * b]!;
+          let z = a1 ^ first[2 * b + 1]!;
           y = y - ((y >>> 1) & 0x55555555);
+          z = z - ((z >>> 1) & 0x55555555);
           y = (y & 0x33333333) + ((y >>> 2) & 0x33333333);
+          z = (z & 0x33333333) + ((z >>> 2) & 0x33333333);
           y = (y + (y >>> 4)) & 0x0f0f0f0f;
-          let w2 = Math.imul(y, 0x01010101) >>> 24;
+          z = (z + (z >>> 4)) & 0x0f0f0f0f;
+          let w2 = (Math.imul(y, 0x01010101) >>> 24) + (Math.imul(z, 0x01010101) >>> 24);
           if (w2 > W) continue;
           const bo = b * s;
-          for (let x = 1; x < s && w2 <= W; x++) w2 += popcount32(m[ao + x]! ^ m[bo + x]!);
+          for (let x = 2; x < s && w2 <= W; x++) w2 += popcount32(m[ao + x]! ^ m[bo + x]!);
           if (w2 <= W) {
             for (let x = 0; x < s; x++) tmp[x] = m[ao + x]! ^ m[bo + x]!;
             take();

@@ -67,8 +67,10 @@ int main(void) {
       for (int x = 0; x < s && wt <= W; x++) wt += __builtin_popcount(m[a * s + x]);
       if (wt <= W) { hits++; store_add(m + a * s); }
       for (int b = a + 1; b < k; b++) {
-        int w2 = 0;
-        for (int x = 0; x < s && w2 <= W; x++) w2 += __builtin_popcount(m[a * s + x] ^ m[b * s + x]);
+        /* same filter as the JS kernel: words 0 and 1 first */
+        int w2 = __builtin_popcount(m[a * s] ^ m[b * s]) + (s > 1 ? __builtin_popcount(m[a * s + 1] ^ m[b * s + 1]) : 0);
+        if (w2 > W) continue;
+        for (int x = 2; x < s && w2 <= W; x++) w2 += __builtin_popcount(m[a * s + x] ^ m[b * s + x]);
         if (w2 <= W) { hits++; for (int x = 0; x < s; x++) tmp[x] = m[a * s + x] ^ m[b * s + x]; store_add(tmp); }
       }
     }
