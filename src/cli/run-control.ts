@@ -8,9 +8,16 @@ import { floatOption, intOption } from './input.js';
 export interface RunControl {
   readonly pool: TaskPool;
   readonly shouldStop: () => boolean;
+  /** Why shouldStop became true: 'interrupted' (a signal) or 'time' (the time limit); null while running. */
+  readonly stopCause: () => 'interrupted' | 'time' | null;
   report(label: string, state: { iterations: number; counts?: Record<string, number>; missProbability?: Record<string, number> }): void;
   endLine(): void;
   close(): Promise<void>;
+  /**
+   * Rate-based estimate once a few seconds of work are done: seconds for `planned` units at the rate of
+   * the `done` so far, and whether that overruns the time limit. Null before there is a rate to go on.
+   */
+  estimate(done: number, planned: number): { rate: number; seconds: number; exceedsLimit: boolean } | null;
 }
 
 export async function startRun(o: { workers?: string; timeLimit?: string; progress?: boolean; what: string; resumeHint?: string }): Promise<RunControl> {
@@ -34,6 +41,7 @@ export async function startRun(o: { workers?: string; timeLimit?: string; progre
   return {
     pool,
     shouldStop: () => interrupted || (Date.now() - started) / 1000 >= limit,
+    stopCause: () => (interrupted ? 'interrupted' : (Date.now() - started) / 1000 >= limit ? 'time' : null),
     report(label, state) {
       if (!show) return;
       const now = Date.now();
@@ -44,6 +52,13 @@ export async function startRun(o: { workers?: string; timeLimit?: string; progre
       const miss = state.missProbability ? Math.max(...Object.values(state.missProbability)) : NaN;
       process.stderr.write(`\r${o.what} ${label}: ${state.iterations} iterations, ${(state.iterations / Math.max(secs, 1e-3)).toFixed(0)}/s, words ${counts}${Number.isNaN(miss) ? '' : `, miss ≤ ${miss.toExponential(1)}`}   `);
       shown = true;
+    },
+    estimate(done, planned) {
+      const secs = (Date.now() - started) / 1000;
+      if (secs < 2 || done <= 0 || planned <= 0) return null;
+      const rate = done / secs;
+      const seconds = planned / rate;
+      return { rate, seconds, exceedsLimit: seconds > limit };
     },
     endLine() {
       if (shown) process.stderr.write('\n');

@@ -114,13 +114,14 @@ export function registerRun(program: Command): void {
               out: resume ? undefined : wordsFile,
               resume,
             },
-            control,
+            stageControl(control, config.search.timeLimit),
           );
           search = Object.fromEntries(results.map((r) => [r.side, r]));
           if (results.some((r) => r.stopReason === 'interrupted')) {
             interrupted = true;
             return;
           }
+          if (results.some((r) => r.stopReason === 'time')) say(`search: stopped at search.timeLimit; the words found so far are used (rerun with a larger limit to continue from ${wordsFile})`);
           ck.put('search', search);
           for (const r of results) say(`search ${r.side}: ${r.wordCount} words of weight ≤ ${r.maxWeight} (${r.method}, ${r.complete ? 'complete' : `miss probability ≤ ${Math.max(...Object.values(r.missProbability)).toExponential(1)}`})`);
         }
@@ -206,5 +207,22 @@ function readConditioned(prefix: string, sides: string[], format: MatrixFormat, 
   return {
     hx: sides.includes('x') ? readMatrixFile(`${prefix}.hx.${format}`) : hx,
     hz: sides.includes('z') ? readMatrixFile(`${prefix}.hz.${format}`) : hz,
+  };
+}
+
+/** The run's control with a stage's own time limit added (null: none). */
+export function stageControl(control: RunControl, seconds: number | null): RunControl {
+  if (seconds === null) return control;
+  const t0 = Date.now();
+  const late = () => (Date.now() - t0) / 1000 >= seconds;
+  return {
+    ...control,
+    pool: control.pool,
+    shouldStop: () => control.shouldStop() || late(),
+    stopCause: () => control.stopCause() ?? (late() ? 'time' : null),
+    report: (l, st) => control.report(l, st),
+    endLine: () => control.endLine(),
+    close: () => control.close(),
+    estimate: (d, p) => control.estimate(d, p),
   };
 }

@@ -1,3 +1,4 @@
+import { freemem } from 'node:os';
 import type { Command } from 'commander';
 import { type BitMatrix, packSupport, packedSupport } from '../gf2/bitmatrix.js';
 import { RowSpaceSolver } from '../gf2/solve.js';
@@ -28,6 +29,7 @@ export interface SearchCliOptions extends CodeOptions {
   orbits?: string;
   progress?: boolean;
   shard?: string;
+  maxMemory?: string;
 }
 
 export interface SearchSide {
@@ -76,6 +78,7 @@ export function registerSearch(program: Command): void {
     .option('--iterations <n>', 'information sets to visit (isd)')
     .option('--target-miss <p>', 'stop once every weight ≤ W has miss probability below p (default 1e-6)')
     .option('--max-words <n>', 'cap on stored words', '2000000')
+    .option('--max-memory <size>', 'approximate memory for the word store, e.g. 512M or 4G (default: a quarter of the free memory)')
     .option('--symmetry <spec>', 'shifts to expand orbits with: blocks=B,l=L[,m=M] (verified before use)')
     .option('--orbits <mode>', 'auto (use the family symmetry) or off', 'auto')
     .option('--out <file>', 'stream words to FILE as JSON lines (resumable)')
@@ -126,6 +129,7 @@ export async function searchSides(sides: SearchSide[], o: SearchCliOptions, shar
   const targetMiss = o.targetMiss !== undefined ? floatOption('target-miss', o.targetMiss, 1e-6, 1e-300, 1) : undefined;
   const maxWords = intOption('max-words', o.maxWords, 2_000_000, 1);
   const shard = parseShard(o.shard);
+  const maxMemory = parseSize(o.maxMemory) ?? Math.floor(freemem() / 4);
   if (shard && o.resume) throw new InputError('--shard and --resume cannot be combined: resume each shard from its own --out file without --shard');
   const resumed = o.resume ? readWordsFile(o.resume) : null;
   const outPath = o.out ?? o.resume;
@@ -150,8 +154,14 @@ export async function searchSides(sides: SearchSide[], o: SearchCliOptions, shar
       const stride = s.h.stride;
       const rowKeys = new Set<string>();
       for (let r = 0; r < s.h.rows; r++) rowKeys.add(packedSupport(s.h.data, r * stride, stride).join(','));
+      let warned = false;
       const onNewWords = (words: Uint32Array[], state: SearchProgress) => {
         control.report(s.side, state);
+        const eta = control.estimate(state.iterations - (previous?.iterations ?? 0), (state.planned ?? 0) - (previous?.iterations ?? 0));
+        if (!warned && eta !== null && eta.exceedsLimit) {
+          warned = true;
+          process.stderr.write(`overcheck: warning: side ${s.side}: at the measured ${eta.rate.toFixed(0)} iterations/s the planned ${state.planned} take about ${eta.seconds.toFixed(0)} s, more than --time-limit; the result will be partial (resumable with --out/--resume)\n`);
+        }
         if (!writer) return;
         if (!headerWritten) {
           writer.line(headerFor(null));
@@ -166,19 +176,21 @@ export async function searchSides(sides: SearchSide[], o: SearchCliOptions, shar
       };
       const r = await runSearch(
         { side: s.side, h: s.h, symmetry: s.symmetry },
-        { maxWeight: W, method, seed, iterations, targetMiss, maxWords, firstStream: previous?.nextStream, previous, shard },
-        { pool: control.pool, shouldStop: control.shouldStop, onNewWords },
+        { maxWeight: W, method, seed, iterations, targetMiss, maxWords, maxMemory, firstStream: previous?.nextStream, previous, shard },
+        { pool: control.pool, shouldStop: control.shouldStop, stopCause: control.stopCause, onNewWords },
       );
       control.endLine();
       (r as SearchResult & { codeHash: string }).codeHash = codeHash;
-      if (r.truncated) process.stderr.write(`overcheck: side ${s.side}: stopped at --max-words ${maxWords}; raise it or lower --max-weight\n`);
+      if (r.truncated) {
+        process.stderr.write(`overcheck: side ${s.side}: stopped at ${r.wordCount} words, the --max-words ${maxWords} / --max-memory ${formatSize(maxMemory)} limit for the word store; raise it or lower --max-weight\n`);
+      }
       results.push(r);
       finalLines.push(headerFor(r.plan));
       const orig = new Set(r.original);
       r.words.forEach((w, i) => finalLines.push(orig.has(i) ? { side: s.side, support: w, original: true } : { side: s.side, support: w }));
       finalLines.push({ side: s.side, progress: { iterations: r.iterations, nextStream: r.streams.next, complete: r.complete } });
       finalLines.push({ side: s.side, summary: { counts: r.counts, orbits: r.orbits, missProbability: r.missProbability, complete: r.complete, stopReason: r.stopReason, seed: r.seed, iterations: r.iterations } });
-      if (r.stopReason === 'interrupted') break;
+      if (r.stopReason === 'interrupted' || r.stopReason === 'time') break;
     }
   } finally {
     writer?.close();
@@ -187,8 +199,8 @@ export async function searchSides(sides: SearchSide[], o: SearchCliOptions, shar
   if (outPath) {
     // sides not run this time (interrupted before them) keep what the resumed file had
     finalizeWordsFile(outPath, finalLines);
-    if (results.some((r) => r.stopReason === 'interrupted')) {
-      process.stderr.write(`overcheck: interrupted; words so far are in ${outPath}; continue with --resume ${outPath}\n`);
+    if (results.some((r) => r.stopReason === 'interrupted' || r.stopReason === 'time')) {
+      process.stderr.write(`overcheck: stopped (${results.some((r) => r.stopReason === 'time') ? 'time limit' : 'interrupted'}); words so far are in ${outPath}; continue with --resume ${outPath}\n`);
     }
   }
   return results;
@@ -217,4 +229,17 @@ export function parseShard(text: string | undefined): { index: number; count: nu
   const m = /^(\d+)\/(\d+)$/.exec(text.trim());
   if (!m || Number(m[2]) < 1 || Number(m[1]) >= Number(m[2])) throw new InputError(`--shard: expected I/N with 0 ≤ I < N, found "${text}"`);
   return { index: Number(m[1]), count: Number(m[2]) };
+}
+
+/** `512M`, `4G`, `100000K` or a byte count. */
+export function parseSize(text: string | undefined): number | undefined {
+  if (text === undefined) return undefined;
+  const m = /^(\d+(?:\.\d+)?)\s*([KMGT]?)B?$/i.exec(text.trim());
+  if (!m) throw new InputError(`--max-memory: expected a size such as 512M or 4G, found "${text}"`);
+  const mult = { '': 1, K: 2 ** 10, M: 2 ** 20, G: 2 ** 30, T: 2 ** 40 }[m[2]!.toUpperCase() as '' | 'K' | 'M' | 'G' | 'T'];
+  return Math.floor(Number(m[1]) * mult);
+}
+
+export function formatSize(bytes: number): string {
+  return bytes >= 2 ** 30 ? `${(bytes / 2 ** 30).toFixed(1)}G` : bytes >= 2 ** 20 ? `${Math.round(bytes / 2 ** 20)}M` : `${Math.round(bytes / 2 ** 10)}K`;
 }

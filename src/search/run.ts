@@ -27,6 +27,8 @@ export interface SearchOptions {
   readonly iterations?: number;
   readonly targetMiss?: number;
   readonly maxWords: number;
+  /** Approximate bytes the word store may use; the search stops (resumable) before exceeding it. */
+  readonly maxMemory?: number;
   /** Start numbering seed streams here (resume uses fresh streams). */
   readonly firstStream?: number;
   /** Run only the chunks with id ≡ index (mod count); merging all shards gives the unsharded result. */
@@ -39,6 +41,8 @@ export interface SearchOptions {
 export interface SearchHooks {
   readonly pool: TaskPool;
   readonly shouldStop?: () => boolean;
+  /** Names the cause once shouldStop said yes (default 'interrupted'). */
+  readonly stopCause?: () => string | null;
   /** Called after every merged chunk with the words it added (packed), in deterministic order. */
   readonly onNewWords?: (words: Uint32Array[], state: SearchProgress) => void;
 }
@@ -49,6 +53,8 @@ export interface SearchProgress {
   readonly counts: Record<string, number>;
   readonly missProbability: Record<string, number>;
   readonly complete: boolean;
+  /** Iterations this process is to run in all (its chunks), when known: for rate-based estimates. */
+  readonly planned: number | null;
 }
 
 export interface SearchResult {
@@ -98,7 +104,7 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
   /** Insert a word and (with symmetry) its orbit; returns the words that were new. */
   const insert = (v: Uint32Array, flag: number, fresh: Uint32Array[]): void => {
     if (store.has(v)) return;
-    if (store.size >= opts.maxWords) {
+    if (store.size >= opts.maxWords || (opts.maxMemory !== undefined && store.bytes > opts.maxMemory)) {
       truncated = true;
       return;
     }
@@ -155,7 +161,8 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
     }
     return m;
   };
-  const progress = (): SearchProgress => ({ iterations, nextStream, counts: counts(), missProbability: misses(), complete });
+  let planned: number | null = null;
+  const progress = (): SearchProgress => ({ iterations, nextStream, counts: counts(), missProbability: misses(), complete, planned });
   hooks.onNewWords?.(seedWords, progress());
 
   let stopReason = 'finished';
@@ -179,6 +186,7 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
     const data = basis.reduced.data;
     totalChunks = plan.chunks;
     ids = chunkIds(totalChunks);
+    planned = iterations + ids.length * 2 ** plan.lowBits;
     await runOrdered<GrayChunkResult>(
       hooks.pool,
       ids.length,
@@ -200,7 +208,7 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
     );
     if (ids.length === 0) nextStream = totalChunks;
     complete = shard.count === 1 && delivered === ids.length && !truncated;
-    stopReason = truncated ? 'max-words' : delivered < ids.length ? 'interrupted' : 'finished';
+    stopReason = truncated ? 'max-words' : delivered < ids.length ? (hooks.stopCause?.() ?? 'interrupted') : 'finished';
   } else {
     const per = plan.chunkIterations;
     // the whole run's length: fixed by --iterations or by the target (counting what a resumed file already did)
@@ -208,6 +216,7 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
     const lastLen = need - per * (Math.ceil(need / per) - 1);
     totalChunks = firstStream + Math.ceil(need / per);
     ids = chunkIds(totalChunks);
+    planned = iterations + ids.reduce((t, c) => t + (c === totalChunks - 1 ? lastLen : per), 0);
     await runOrdered<IsdChunkResult>(
       hooks.pool,
       ids.length,
@@ -233,7 +242,7 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
     );
     if (ids.length === 0) nextStream = totalChunks;
     if (truncated) stopReason = 'max-words';
-    else if (delivered < ids.length) stopReason = 'interrupted';
+    else if (delivered < ids.length) stopReason = hooks.stopCause?.() ?? 'interrupted';
     else stopReason = opts.iterations !== undefined ? 'iterations' : 'target';
   }
 
