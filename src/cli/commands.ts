@@ -1,4 +1,5 @@
 import type { Command } from 'commander';
+import { registerDistance } from './distance.js';
 import { registerInfo } from './info.js';
 import { registerMake } from './make.js';
 
@@ -6,4 +7,5 @@ import { registerMake } from './make.js';
 export function registerCommands(program: Command): void {
   registerInfo(program);
   registerMake(program);
+  registerDistance(program);
 }

@@ -1,0 +1,112 @@
+import type { Command } from 'commander';
+import { InputError } from '../errors.js';
+import { readMatrixFile } from '../formats/index.js';
+import { DEFAULT_SEED } from '../parallel/seeds.js';
+import { choiceOption, codeOptions, floatOption, intOption, loadCodeInput, printJson, type CodeOptions } from './input.js';
+import { EXIT_NO, ExitWith } from './main.js';
+
+interface DistanceOptions extends CodeOptions {
+  generator?: string;
+  side?: string;
+  method?: string;
+  seed?: string;
+  workers?: string;
+  timeLimit?: string;
+  iterations?: string;
+  targetMiss?: string;
+  enumerationLimit?: string;
+  json?: boolean;
+  progress?: boolean;
+}
+
+export function registerDistance(program: Command): void {
+  codeOptions(program.command('distance').description('audit the minimum weight of logical operators (dX, dZ) or of a classical code: bounds, witness, count'))
+    .option('--generator <file>', 'a classical generator matrix (instead of --h)')
+    .option('--side <side>', 'x, z or both (CSS codes)')
+    .option('--method <method>', 'auto, exhaustive, isd or certify', 'auto')
+    .option('--seed <seed>', `random seed (default ${DEFAULT_SEED})`)
+    .option('--workers <n>', 'worker threads (default: number of cores; 0 runs inline)')
+    .option('--time-limit <sec>', 'stop after this many seconds and report the bounds reached')
+    .option('--iterations <n>', 'information-set iterations (alone: exactly this many)')
+    .option('--target-miss <p>', 'stop the information-set search once the miss probability is below p (default 1e-6)')
+    .option('--enumeration-limit <n>', 'largest certifying enumeration auto plans for, in combinations (default 1e9)')
+    .option('--progress', 'progress on stderr even when it is not a terminal')
+    .option('--json', 'print one JSON object')
+    .action(async (o: DistanceOptions) => {
+      const { auditDistance, DISTANCE_METHODS, DEFAULT_ENUMERATION_LIMIT } = await import('../distance/audit.js');
+      const { classicalCheckProblem, classicalGeneratorProblem } = await import('../distance/problem.js');
+      const { formatDistanceText } = await import('../distance/result.js');
+      const { openPool, defaultWorkers } = await import('../parallel/pool.js');
+
+      const method = choiceOption('method', o.method, DISTANCE_METHODS, 'auto');
+      const seed = o.seed === undefined ? DEFAULT_SEED : /^\d+$/.test(o.seed) ? Number(o.seed) : o.seed;
+      const workers = intOption('workers', o.workers, defaultWorkers(), 0);
+      const timeLimit = floatOption('time-limit', o.timeLimit, Infinity, 0);
+      const iterations = o.iterations === undefined ? undefined : intOption('iterations', o.iterations, 0, 0);
+      const targetMiss = o.targetMiss === undefined ? undefined : floatOption('target-miss', o.targetMiss, 0, 0, 1);
+      const enumerationLimit = floatOption('enumeration-limit', o.enumerationLimit, DEFAULT_ENUMERATION_LIMIT, 0);
+
+      let input: Parameters<typeof auditDistance>[1];
+      if (o.generator !== undefined) {
+        if (o.hx !== undefined || o.hz !== undefined || o.family !== undefined || o.h !== undefined) {
+          throw new InputError('--generator takes the place of --h, --family and --hx/--hz: give only one input');
+        }
+        if (o.side !== undefined) throw new InputError('--side applies to CSS codes only');
+        input = { kind: 'classical', problem: classicalGeneratorProblem(readMatrixFile(o.generator)), label: o.generator };
+      } else {
+        const loaded = loadCodeInput(o);
+        if (loaded.kind === 'css') {
+          input = { kind: 'css', code: loaded.code, label: loaded.label, side: choiceOption('side', o.side, ['x', 'z', 'both'] as const, 'both') };
+        } else {
+          if (o.side !== undefined) throw new InputError('--side applies to CSS codes only');
+          input = { kind: 'classical', problem: classicalCheckProblem(loaded.h), label: loaded.label };
+        }
+      }
+
+      const started = Date.now();
+      const deadline = started + timeLimit * 1000;
+      let interrupted = false;
+      const onSigint = () => {
+        interrupted = true;
+      };
+      process.once('SIGINT', onSigint);
+      const showProgress = o.progress === true || process.stderr.isTTY === true;
+      const tty = process.stderr.isTTY === true;
+      let lastShown = 0;
+      let shownSomething = false;
+      const pool = await openPool(workers);
+      let report;
+      try {
+        report = await auditDistance(pool, input, { method, seed, iterations, targetMiss, enumerationLimit }, {
+          shouldStop: () => interrupted || Date.now() >= deadline,
+          stopReason: () => (interrupted ? 'interrupted' : 'time-limit'),
+          progress: showProgress
+            ? (p) => {
+                const now = Date.now();
+                if (now - lastShown < (tty ? 250 : 1000)) return;
+                lastShown = now;
+                const what =
+                  p.phase === 'isd'
+                    ? `search ${p.iterations} iterations, miss ${p.missProbability.toExponential(1)}`
+                    : p.phase === 'enumeration'
+                      ? `enumeration level ${p.level}, ${p.combinations.toExponential(2)} combinations`
+                      : `exhaustive ${p.combinations.toExponential(2)} words`;
+                const line = `${p.key}: ${p.lower}..${p.upper}  ${what}  ${((now - started) / 1000).toFixed(1)} s`;
+                process.stderr.write(tty ? `\r${line}\x1b[K` : `${line}\n`);
+                shownSomething = true;
+              }
+            : undefined,
+        });
+      } finally {
+        process.removeListener('SIGINT', onSigint);
+        await pool.close();
+        if (shownSomething && tty) process.stderr.write('\n');
+      }
+      if (o.json) printJson(report);
+      else process.stdout.write(formatDistanceText(report) + `elapsed ${((Date.now() - started) / 1000).toFixed(2)} s\n`);
+      if (method === 'certify') {
+        const certified = report.kind === 'classical' ? report.d.certified : [report.dx, report.dz].every((s) => s === undefined || s.certified);
+        if (!certified) throw new ExitWith(EXIT_NO);
+      }
+    });
+}
