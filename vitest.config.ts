@@ -4,6 +4,7 @@ export default defineConfig({
   test: {
     include: ['test/**/*.test.ts'],
     pool: 'forks',
+    setupFiles: ['./test/setup.ts'],
     testTimeout: 60_000,
     hookTimeout: 60_000,
     reporters: ['default', './test/summary-reporter.ts'],

@@ -9,7 +9,8 @@
  *     enumeration);
  *  3. for certify (always) and auto (when the planned cost fits --enumeration-limit): the enumeration
  *     continued until lower = upper and every minimum-weight word is listed.
- * Exhaustive (and auto on codes of dimension ≤ AUTO_EXHAUSTIVE_DIM) visits all 2^K codewords instead.
+ * Exhaustive (and auto on codes of dimension ≤ AUTO_EXHAUSTIVE_DIM) visits all 2^K codewords after phase 1
+ * instead (phase 1 only lowers the weight limit there).
  * No clock is read here: the caller's `shouldStop` carries time limits and interrupts.
  */
 import { InputError } from '../errors.js';
@@ -19,10 +20,9 @@ import { logicalBasis } from '../codes/logicals.js';
 import { packedSupport } from '../gf2/bitmatrix.js';
 import { EnumerationSchedule, type EnumerationGoal, goalMet, planEnumeration, remainingCost } from './brouwer-zimmermann.js';
 import { runEnumerationPhase, runExhaustivePhase } from './certify.js';
-import { EXHAUSTIVE_MAX_DIM } from './exhaustive.js';
 import { cssSideProblem, type DistanceProblem, type Side } from './problem.js';
 import { combineSides, type DistanceReport, type SideReport, type SideStop } from './result.js';
-import { kernelSuccess, missProbability, runInformationSetPhase } from './upper.js';
+import { type IsdStage, isdCode, rangeMiss, runInformationSetPhase } from './upper.js';
 import { WordCollection } from './words.js';
 
 export type DistanceMethod = 'auto' | 'exhaustive' | 'isd' | 'certify';
@@ -32,6 +32,8 @@ export const DISTANCE_METHODS: readonly DistanceMethod[] = ['auto', 'exhaustive'
 export const FREE_ENUMERATION = 1 << 20;
 /** auto enumerates all 2^K codewords up to this dimension. */
 export const AUTO_EXHAUSTIVE_DIM = 22;
+/** Largest dimension exhaustive enumeration accepts (2^32 codewords: tens of seconds). */
+export const EXHAUSTIVE_MAX_DIM = 32;
 export const DEFAULT_TARGET_MISS = 1e-6;
 /** Information-set warm-up before an enumeration (which finds the minimum by itself anyway). */
 export const WARMUP_TARGET_MISS = 1e-3;
@@ -80,63 +82,73 @@ export async function auditSide(pool: TaskPool, problem: DistanceProblem, stream
   const report = (phase: AuditProgress['phase'], lower: number, iterations: number, miss: number, combinations: number, level: number) =>
     control.progress?.({ key: problem.key, phase, upper: collection.limit, lower, iterations, missProbability: miss, combinations, level });
 
-  if (s.method === 'exhaustive' || (s.method === 'auto' && K <= AUTO_EXHAUSTIVE_DIM)) {
-    if (K > EXHAUSTIVE_MAX_DIM) {
-      throw new InputError(`${problem.key}: exhaustive enumeration of 2^${K} codewords is out of reach (limit 2^${EXHAUSTIVE_MAX_DIM}); use --method certify or isd`);
-    }
-    const r = await runExhaustivePhase(pool, b, collection, stop, (v) => report('exhaustive', 1, 0, 1, v, K));
-    const U = collection.lightest();
-    return finish(problem, collection, {
-      lower: r.complete ? U : 1,
-      countExact: r.complete,
-      method: 'exhaustive',
-      stoppedBy: r.complete ? 'certified' : control.stopReason(),
-      isdIterations: 0,
-      enumeration: null,
-      exhaustive: { visited: r.visited, total: 2 ** K },
-    });
+  const exhaustive = s.method === 'exhaustive' || (s.method === 'auto' && K <= AUTO_EXHAUSTIVE_DIM);
+  if (exhaustive && K > EXHAUSTIVE_MAX_DIM) {
+    throw new InputError(`${problem.key}: exhaustive enumeration of 2^${K} codewords is out of reach (limit 2^${EXHAUSTIVE_MAX_DIM}); use --method certify or isd`);
   }
-
+  const isd = isdCode(b, problem.filter);
   const plan = planEnumeration(b);
   const schedule = new EnumerationSchedule(plan);
   let combinations = 0;
+  const stages: IsdStage[] = [];
+  const isdState = { nextChunk: 0, iterations: 0 };
+  let stoppedBy: SideStop | null = null;
   const enumerate = async (goal: EnumerationGoal, budget: number) => {
     const r = await runEnumerationPhase(pool, plan, schedule, collection, goal, budget, stop, (p) =>
-      report('enumeration', Math.min(p.bound, collection.limit), isdIterations, 1, combinations + p.combinations, p.level),
+      report('enumeration', Math.min(p.bound, collection.limit), isdState.iterations, 1, combinations + p.combinations, p.level),
     );
     combinations += r.combinations;
     return r;
   };
-  let isdIterations = 0;
-  let stoppedBy: SideStop | null = null;
+  const enumerationSummary = () => ({
+    sets: plan.sets.map((x, j) => ({ size: x.columns.length, rank: x.rank, level: schedule.levels[j]! })),
+    bound: schedule.bound(),
+    combinations,
+  });
 
-  // 1. cheap first lower bound
+  // 1. cheap first lower bound (and often the minimum itself, which keeps the limit W small from here on)
   const free = await enumerate('exceed', FREE_ENUMERATION);
   if (free.stoppedBy === 'stopped') stoppedBy = control.stopReason();
+  const settled = () => goalMet(schedule.bound(), collection.limit, 'exceed', b.n);
+
+  if (exhaustive) {
+    // asked for: always visit every codeword; under auto, only when the first pass did not settle it
+    const first = s.method === 'auto' && settled();
+    const r = first || stoppedBy ? null : await runExhaustivePhase(pool, isd, collection, stop, (v) => report('exhaustive', 1, 0, 1, v, K));
+    const all = first || (r?.complete ?? false);
+    const U = collection.lightest();
+    return finish(problem, collection, {
+      lower: all ? U : Math.min(schedule.bound(), U),
+      countExact: all,
+      method: r ? 'exhaustive' : 'brouwer-zimmermann',
+      stoppedBy: all ? 'certified' : r?.overflow ? 'word-limit' : (stoppedBy ?? control.stopReason()),
+      isd: { stages: [], miss: () => 1 },
+      enumeration: enumerationSummary(),
+      exhaustive: r ? { visited: r.visited, total: 2 ** K } : null,
+    });
+  }
 
   // 2. information-set search
   const userTarget = s.targetMiss;
   const onlyIterations = s.iterations !== undefined && userTarget === undefined;
-  const isdPhase = async (target: number) => {
-    const r = await runInformationSetPhase(
+  const isdPhase = async (target: number) =>
+    runInformationSetPhase(
       pool,
-      b,
+      isd,
       collection,
-      { seed: s.seed, streamBase, startIteration: isdIterations, maxIterations: (s.iterations ?? Infinity) - isdIterations, targetMiss: target, lowerBound: schedule.bound() },
+      stages,
+      isdState,
+      { seed: s.seed, streamBase, maxIterations: (s.iterations ?? Infinity) - isdState.iterations, targetMiss: target, lowerBound: schedule.bound() },
       stop,
-      (it, miss) => report('isd', Math.min(schedule.bound(), collection.limit), isdIterations + it, miss, combinations, 0),
+      (it, miss) => report('isd', Math.min(schedule.bound(), collection.limit), it, miss, combinations, 0),
     );
-    isdIterations += r.iterations;
-    return r;
-  };
   const finalTarget = onlyIterations ? 0 : (userTarget ?? DEFAULT_TARGET_MISS);
-  const settled = () => goalMet(schedule.bound(), collection.limit, 'exceed', b.n);
   let isdStop: SideStop | null = null;
   const warm = s.method !== 'isd' && !onlyIterations && userTarget === undefined ? WARMUP_TARGET_MISS : finalTarget;
   if (!stoppedBy && !settled() && (s.iterations ?? 1) > 0) {
     const r = await isdPhase(warm);
     if (r.stoppedBy === 'stopped') stoppedBy = control.stopReason();
-    else isdStop = r.stoppedBy;
+    else isdStop = r.stoppedBy === 'unreachable' ? 'iterations' : r.stoppedBy;
   }
 
   // 3. enumeration to certify
@@ -159,7 +171,7 @@ export async function auditSide(pool: TaskPool, problem: DistanceProblem, stream
       if (finalTarget < warm && isdStop === 'target-miss') {
         const r = await isdPhase(finalTarget);
         if (r.stoppedBy === 'stopped') stoppedBy = control.stopReason();
-        else isdStop = r.stoppedBy;
+        else isdStop = r.stoppedBy === 'unreachable' ? 'iterations' : r.stoppedBy;
       }
       stoppedBy = stoppedBy ?? 'enumeration-limit';
     }
@@ -177,12 +189,8 @@ export async function auditSide(pool: TaskPool, problem: DistanceProblem, stream
     countExact,
     method: certified ? 'brouwer-zimmermann' : 'isd',
     stoppedBy,
-    isdIterations,
-    enumeration: {
-      sets: plan.sets.map((x, j) => ({ size: x.columns.length, rank: x.rank, level: schedule.levels[j]! })),
-      bound,
-      combinations,
-    },
+    isd: { stages, miss: (from: number, to: number) => rangeMiss(isd, stages, from, to) },
+    enumeration: enumerationSummary(),
     exhaustive: null,
   });
 }
@@ -192,7 +200,7 @@ interface Finish {
   countExact: boolean;
   method: SideReport['method'];
   stoppedBy: SideStop;
-  isdIterations: number;
+  isd: { stages: readonly IsdStage[]; miss: (from: number, to: number) => number };
   enumeration: SideReport['enumeration'];
   exhaustive: SideReport['exhaustive'];
 }
@@ -208,10 +216,8 @@ function finish(problem: DistanceProblem, collection: WordCollection, f: Finish)
     if (i === 0) partner = v.partner;
   });
   const certified = f.lower >= U;
-  const success = kernelSuccess(problem.basis);
-  let minSuccess: number | null = null;
-  for (let w = f.lower; w < U; w++) minSuccess = Math.min(minSuccess ?? 1, success(w));
-  const miss = certified ? 0 : f.isdIterations > 0 ? missProbability(success, f.isdIterations, f.lower, U - 1) : 1;
+  const iterations = f.isd.stages.reduce((a, st) => a + st.iterations, 0);
+  const miss = certified ? 0 : iterations > 0 ? f.isd.miss(f.lower, U - 1) : 1;
   return {
     upper: U,
     lower: f.lower,
@@ -224,7 +230,10 @@ function finish(problem: DistanceProblem, collection: WordCollection, f: Finish)
     dimension: problem.basis.dim,
     method: f.method,
     stoppedBy: f.stoppedBy,
-    isd: { kernel: 'lee-brickell p=1', iterations: f.isdIterations, successProbability: minSuccess },
+    isd: {
+      iterations,
+      stages: f.isd.stages.filter((st) => st.iterations > 0).map((st) => ({ ...st.settings, iterations: st.iterations })),
+    },
     enumeration: f.enumeration,
     exhaustive: f.exhaustive,
   };

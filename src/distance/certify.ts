@@ -14,7 +14,7 @@ import {
   goalMet,
   scanLevel,
 } from './brouwer-zimmermann.js';
-import { collectGrayHits, type GrayChunkPayload, grayChunks } from './exhaustive.js';
+import { type GrayChunkResult, type GrayChunkTask, grayChunkCount, grayLowBits } from '../search/gray.js';
 import type { WordCollection } from './words.js';
 
 /** Combinations per numbered chunk of a level. */
@@ -105,30 +105,50 @@ export async function runEnumerationPhase(
 
 export interface ExhaustivePhaseResult {
   readonly visited: number;
+  /** Every chunk ran to its end (no stop, no chunk over its word limit). */
   readonly complete: boolean;
+  readonly overflow: boolean;
 }
 
-/** Visit all 2^dim codewords (chunk by chunk, merged in order), keeping those within the collection's limit. */
+/** Distinct words one Gray-code chunk may return. */
+const GRAY_MAX_WORDS = 1 << 18;
+
+/**
+ * Visit all 2^dim codewords with the search stage's Gray-code kernel (chunks merged in order), keeping the
+ * filtered ones within the collection's limit, which is fixed for the whole phase at its start.
+ */
 export async function runExhaustivePhase(
   pool: TaskPool,
-  basis: AugmentedBasis,
+  code: { readonly n: number; readonly dim: number; readonly generator: Uint32Array; readonly filter?: { readonly rows: number; readonly data: Uint32Array } },
   collection: WordCollection,
   shouldStop: () => boolean,
   onProgress?: (visited: number) => void,
 ): Promise<ExhaustivePhaseResult> {
-  const chunks = grayChunks(basis.dim);
-  const per = 2 ** basis.dim / chunks;
+  const chunks = grayChunkCount(code.dim);
+  const lowBits = grayLowBits(code.dim);
+  const W = collection.limit;
+  const S = (code.n + 31) >>> 5;
   let merged = 0;
-  await runOrdered<Int32Array>(
+  let visited = 0;
+  let overflow = false;
+  await runOrdered<GrayChunkResult>(
     pool,
     chunks,
-    (c) => ({ kind: 'distance.gray', payload: { basis, chunk: c, maxWeight: collection.limit } satisfies GrayChunkPayload }),
-    (c, hits) => {
-      collectGrayHits(basis, c, hits, collection);
-      merged++;
-      onProgress?.(merged * per);
+    (c) => {
+      const task: GrayChunkTask = {
+        rows: code.dim, cols: code.n, basis: code.generator, maxWeight: W, lowBits, chunk: c, maxWords: GRAY_MAX_WORDS,
+        ...(code.filter ? { filter: code.filter } : {}),
+      };
+      return { kind: 'search.gray', payload: task };
     },
-    shouldStop,
+    (_c, r) => {
+      for (let i = 0; i < r.count; i++) collection.add(r.words.subarray(i * S, (i + 1) * S));
+      if (r.overflow) overflow = true;
+      merged++;
+      visited += r.visited;
+      onProgress?.(visited);
+    },
+    () => overflow || shouldStop(),
   );
-  return { visited: merged * per, complete: merged === chunks };
+  return { visited, complete: merged === chunks && !overflow, overflow };
 }

@@ -22,6 +22,8 @@ export interface DistanceProblem {
   readonly key: 'dx' | 'dz' | 'd';
   readonly n: number;
   readonly basis: AugmentedBasis;
+  /** The filter the basis carries syndromes for (LZ for dX, LX for dZ), as the search kernel takes it. */
+  readonly filter?: { readonly rows: number; readonly data: Uint32Array };
   /** Words known to count (logical basis rows, generator rows): the starting upper bound. */
   readonly known: readonly Uint32Array[];
   /**
@@ -51,6 +53,7 @@ export function cssSideProblem(code: CssCode, logicals: LogicalBasis, side: Side
     key: side === 'x' ? 'dx' : 'dz',
     n: code.n,
     basis,
+    filter: { rows: partner.rows, data: partner.data },
     known: rows(own),
     verify(word) {
       if (packedWeight(word, 0, words) === 0) return { ok: false, reason: 'the zero word' };

@@ -10,6 +10,7 @@ export type SideStop =
   | 'target-miss'
   | 'iterations'
   | 'enumeration-limit'
+  | 'word-limit' // an exhaustive chunk met more words within the limit than it may return
   | 'time-limit'
   | 'interrupted';
 
@@ -43,7 +44,14 @@ export interface SideReport {
   /** Which method produced the final bounds. */
   readonly method: 'exhaustive' | 'brouwer-zimmermann' | 'isd';
   readonly stoppedBy: SideStop;
-  readonly isd: { readonly kernel: string; readonly iterations: number; readonly successProbability: number | null };
+  /**
+   * Information-set search: total information sets visited, and the stretches it ran in (each planned by the
+   * search stage's planner: variant, p, window, swap segment, information sets visited).
+   */
+  readonly isd: {
+    readonly iterations: number;
+    readonly stages: readonly { variant: string; p: number; window: number; segment: number; iterations: number }[];
+  };
   readonly enumeration: EnumerationSummary | null;
   readonly exhaustive: { readonly visited: number; readonly total: number } | null;
 }
@@ -93,7 +101,7 @@ function sideLines(name: string, s: SideReport, partnerName: string | null): str
   const bound = s.certified ? `${s.upper} (certified)` : `${s.lower} ≤ ${name} ≤ ${s.upper}`;
   const count = `${s.countExact ? '' : 'at least '}${s.count} word${s.count === 1 ? '' : 's'} of weight ${s.upper}`;
   const lines = [`${name.padEnd(3)} ${bound}   ${count}   [${s.method}, ${s.stoppedBy}]`];
-  if (!s.certified) lines.push(`    miss probability ${probability(s.missProbability)} for a word of weight ${s.lower}..${s.upper - 1} (${s.isd.iterations} search iterations)`);
+  if (!s.certified) lines.push(`    miss probability ${probability(s.missProbability)} for a word of weight ${s.lower}..${s.upper - 1} (${s.isd.iterations} information sets)`);
   const partner = s.anticommutesWith !== null && partnerName ? `, anticommutes with ${partnerName} row ${s.anticommutesWith}` : '';
   lines.push(`    witness ${s.witness.join(',')}${partner}`);
   if (s.enumeration) {

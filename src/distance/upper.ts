@@ -2,221 +2,185 @@
  * Upper bounds on the minimum weight of the filtered words of a code (for a CSS code: the lightest
  * logical operator of one type) by randomized information-set search, and the confidence that comes with it.
  *
- * Interim kernel: plain random information sets with Lee–Brickell p = 1 (each row of the systematic form
- * is a codeword with exactly one 1 on the information set). The shared information-set library of the
- * search stage will replace `leeBrickellChunk`; the driver below only needs "words found in a numbered
- * chunk" and "per-iteration success probability for weight w".
+ * The kernel is the search stage's (src/search/isd.ts: random information sets, Canteaut–Chabaud swap
+ * steps, Lee–Brickell p ≤ 2, Stern), called with the filter so that only words w with w·filterᵀ ≠ 0 come
+ * back (LZ for the X side: the nontrivial X logicals), and the per-weight miss probabilities come from the
+ * same stage's analysis (src/search/plan.ts). This module only drives it for a minimum-distance question.
  */
-import { type Xoshiro128, streamRng } from '../parallel/seeds.js';
+import type { IsdChunkResult, IsdChunkTask, IsdSettings } from '../search/isd.js';
+import { systematicDensity } from '../search/isd.js';
+import { missProbability as settingsMiss, planSearch } from '../search/plan.js';
 import { type TaskPool, runOrdered } from '../parallel/pool.js';
+import { InputError } from '../errors.js';
 import type { AugmentedBasis } from './augmented.js';
-import { keyOf, type WordCollection } from './words.js';
+import type { WordCollection } from './words.js';
 
-/** Iterations per numbered chunk: the unit of seeding, merging and stopping (independent of workers). */
-export const ISD_CHUNK_ITERATIONS = 64;
-
-export interface IsdChunkResult {
+/** One planned stretch of the search: the settings it used and the information sets it visited. */
+export interface IsdStage {
+  readonly settings: IsdSettings;
   readonly iterations: number;
-  /** Distinct words found (weight ≤ maxWeight, passing the filter), packed, count × codeWords. */
-  readonly words: Uint32Array;
-  readonly count: number;
 }
 
-/**
- * `iterations` rounds of: random column order, Gauss–Jordan elimination taking pivots in that order
- * (an information set of `dim` columns), then every row of the systematic form is checked.
- * Rows of weight ≤ maxWeight that pass the filter are returned, deduplicated within the chunk.
- * Buffers are allocated once per chunk, not per iteration.
- */
-export function leeBrickellChunk(b: AugmentedBasis, maxWeight: number, iterations: number, rng: Xoshiro128): IsdChunkResult {
-  const { n, dim, rowWords: S, codeWords: C } = b;
-  const work = new Uint32Array(b.rows.length);
-  const order = new Int32Array(n);
-  for (let i = 0; i < n; i++) order[i] = i;
+/** Stage lengths in chunks: short first (the upper bound drops fast), then 16 chunks per re-plan. */
+const STAGE_CHUNKS = [2, 4, 8, 16];
+/** Distinct words one chunk may return (the count stays "at least" anyway). */
+const CHUNK_MAX_WORDS = 1 << 14;
+
+/** The code and filter in the form the search kernel takes, plus what its analysis needs. */
+export interface IsdCode {
+  readonly n: number;
+  readonly dim: number;
+  /** Distinct nonzero columns: the length the uniform-information-set analysis is run on. */
+  readonly effectiveLength: number;
+  readonly generator: Uint32Array;
+  readonly filter?: { readonly rows: number; readonly data: Uint32Array };
+  readonly density: { readonly mean: number; readonly sparseRows: number };
+}
+
+export function isdCode(b: AugmentedBasis, filter?: { rows: number; data: Uint32Array }): IsdCode {
+  const generator = new Uint32Array(b.dim * b.codeWords);
+  for (let i = 0; i < b.dim; i++) generator.set(b.rows.subarray(i * b.rowWords, i * b.rowWords + b.codeWords), i * b.codeWords);
+  return {
+    n: b.n,
+    dim: b.dim,
+    effectiveLength: distinctColumns(generator, b.dim, b.n),
+    generator,
+    ...(filter ? { filter } : {}),
+    density: systematicDensity(b.dim, b.n, generator),
+  };
+}
+
+function distinctColumns(g: Uint32Array, rows: number, n: number): number {
+  const stride = (n + 31) >>> 5;
   const seen = new Set<string>();
-  const found: number[] = [];
-  const filtered = S > C;
-  for (let it = 0; it < iterations; it++) {
-    work.set(b.rows);
-    for (let i = n - 1; i > 0; i--) {
-      const j = rng.below(i + 1);
-      const tmp = order[i]!;
-      order[i] = order[j]!;
-      order[j] = tmp;
-    }
-    let r = 0;
-    for (let ci = 0; ci < n && r < dim; ci++) {
-      const c = order[ci]!;
-      const w = c >>> 5;
-      const bit = 1 << (c & 31);
-      let p = -1;
-      for (let i = r; i < dim; i++) {
-        if (work[i * S + w]! & bit) {
-          p = i;
-          break;
-        }
-      }
-      if (p < 0) continue;
-      const ro = r * S;
-      if (p !== r) {
-        const po = p * S;
-        for (let k = 0; k < S; k++) {
-          const tmp = work[ro + k]!;
-          work[ro + k] = work[po + k]!;
-          work[po + k] = tmp;
-        }
-      }
-      for (let i = 0; i < dim; i++) {
-        if (i !== r && work[i * S + w]! & bit) {
-          const io = i * S;
-          for (let k = 0; k < S; k++) work[io + k] = work[io + k]! ^ work[ro + k]!;
-        }
-      }
-      r++;
-    }
-    for (let i = 0; i < dim; i++) {
-      const o = i * S;
-      let wt = 0;
-      for (let k = 0; k < C; k++) {
-        let x = work[o + k]!;
-        x = x - ((x >>> 1) & 0x55555555);
-        x = (x & 0x33333333) + ((x >>> 2) & 0x33333333);
-        wt += Math.imul((x + (x >>> 4)) & 0x0f0f0f0f, 0x01010101) >>> 24;
-      }
-      if (wt > maxWeight || wt === 0) continue;
-      if (filtered) {
-        let nz = 0;
-        for (let k = C; k < S; k++) nz |= work[o + k]!;
-        if (nz === 0) continue;
-      }
-      const key = keyOf(work.subarray(o, o + C), C);
-      if (seen.has(key)) continue;
-      seen.add(key);
-      for (let k = 0; k < C; k++) found.push(work[o + k]!);
-    }
+  for (let c = 0; c < n; c++) {
+    let key = '';
+    for (let r = 0; r < rows; r++) if ((g[r * stride + (c >>> 5)]! >>> (c & 31)) & 1) key += `${r},`;
+    if (key !== '') seen.add(key);
   }
-  return { iterations, words: Uint32Array.from(found), count: found.length / Math.max(1, C) };
+  return seen.size;
 }
 
-// ---------------------------------------------------------------------------------------------------------
-// Success and miss probabilities
-
-const logFactorials: number[] = [0];
-function logFactorial(n: number): number {
-  while (logFactorials.length <= n) logFactorials.push(logFactorials[logFactorials.length - 1]! + Math.log(logFactorials.length));
-  return logFactorials[n]!;
+/** Probability that one given word of weight w was missed by all the stages (they are independent). */
+export function stagesMiss(code: IsdCode, stages: readonly IsdStage[], w: number): number {
+  let m = 1;
+  for (const s of stages) if (s.iterations > 0) m *= settingsMiss(code.effectiveLength, code.dim, w, s.settings, s.iterations);
+  return m;
 }
 
-function logBinomial(n: number, k: number): number {
-  if (k < 0 || k > n) return -Infinity;
-  return logFactorial(n) - logFactorial(k) - logFactorial(n - k);
-}
-
-/**
- * Per-iteration probability that Lee–Brickell p = 1 returns a given codeword of weight w: the chance that a
- * uniformly random information set of size `dim` among n columns meets its support in exactly one column,
- * w·C(n−w, dim−1) / C(n, dim) (the standard model: information sets treated as uniform random subsets).
- */
-export function leeBrickellSuccess(n: number, dim: number, w: number): number {
-  if (w < 1 || w > n || dim < 1) return 0;
-  return Math.exp(Math.log(w) + logBinomial(n - w, dim - 1) - logBinomial(n, dim));
-}
-
-/**
- * Probability that a given word of some weight w in [from, to] was missed by `iterations` independent
- * iterations: the largest (1 − p_w)^iterations over that range (0 when the range is empty).
- */
-export function missProbability(success: (w: number) => number, iterations: number, from: number, to: number): number {
+/** The largest per-word miss probability over weights [from, to] (0 when the range is empty). */
+export function rangeMiss(code: IsdCode, stages: readonly IsdStage[], from: number, to: number): number {
   let worst = 0;
-  for (let w = Math.max(1, from); w <= to; w++) {
-    const p = success(w);
-    const miss = p >= 1 ? 0 : Math.exp(iterations * Math.log1p(-p));
-    if (miss > worst) worst = miss;
-  }
+  for (let w = Math.max(1, from); w <= to; w++) worst = Math.max(worst, stagesMiss(code, stages, w));
   return worst;
 }
 
-// ---------------------------------------------------------------------------------------------------------
-// Driver
-
 export interface IsdPhaseOptions {
   readonly seed: string | number;
-  /** Stream index of chunk 0; chunk c uses streamRng(seed, streamBase + c). */
+  /** Stream of the first chunk; chunk c of the side uses streamRng(seed, streamBase + c). */
   readonly streamBase: number;
-  /** Iterations done by earlier phases on the same streams (chunk numbering continues after them). */
-  readonly startIteration: number;
   readonly maxIterations: number;
   /** Stop once the miss probability for weights in [lowerBound, U − 1] is ≤ this (0: never). */
   readonly targetMiss: number;
   readonly lowerBound: number;
 }
 
-export type IsdStop = 'target-miss' | 'iterations' | 'stopped';
+export type IsdStop = 'target-miss' | 'iterations' | 'stopped' | 'unreachable';
 
 export interface IsdPhaseResult {
-  readonly iterations: number;
   readonly stoppedBy: IsdStop;
 }
 
-export interface IsdChunkPayload {
-  readonly basis: AugmentedBasis;
-  readonly maxWeight: number;
-  readonly iterations: number;
-  readonly seed: string | number;
-  readonly stream: number;
-}
-
-/** Worker task body: one numbered chunk of the search. */
-export function isdChunkTask(p: IsdChunkPayload): IsdChunkResult {
-  return leeBrickellChunk(p.basis, p.maxWeight, p.iterations, streamRng(p.seed, p.stream));
-}
-
-/** Per-iteration success probability of the kernel in use, for weight w. */
-export function kernelSuccess(b: AugmentedBasis): (w: number) => number {
-  return (w) => leeBrickellSuccess(b.n, b.dim, w);
-}
-
 /**
- * Run numbered chunks of the search, merging them in chunk order into `collection` (adaptive: it keeps
- * the lightest words). Each chunk is dispatched with W = the current limit, which is never below the final
- * one, so the merged minimum-weight set is the same for any worker count. The stop rules are evaluated
- * after each merged chunk, in order; chunks already running past the stopping point are ignored.
+ * Search in stages. Each stage is planned (settings by the search stage's planner, for weight U − 1, the
+ * heaviest weight that would improve the bound) from the state after the previous stage, and its chunks are
+ * dispatched with W = U at the stage's start: everything a chunk does is fixed by the merged state at a
+ * stage boundary and its stream number, so the result is the same for any worker count. Chunks are merged in
+ * order and the stop rules are evaluated after each; chunks running past the stopping point are ignored.
+ * `stages` (in/out) accumulates what was run, for the miss probability; `nextChunk` continues numbering.
  */
 export async function runInformationSetPhase(
   pool: TaskPool,
-  basis: AugmentedBasis,
+  code: IsdCode,
   collection: WordCollection,
+  stages: IsdStage[],
+  state: { nextChunk: number; iterations: number },
   o: IsdPhaseOptions,
   shouldStop: () => boolean,
   onChunk?: (iterations: number, miss: number) => void,
 ): Promise<IsdPhaseResult> {
-  const success = kernelSuccess(basis);
-  const firstChunk = Math.floor(o.startIteration / ISD_CHUNK_ITERATIONS);
-  const budget = o.maxIterations;
-  const chunks = Number.isFinite(budget) ? Math.ceil(budget / ISD_CHUNK_ITERATIONS) : Number.MAX_SAFE_INTEGER;
+  const missNow = () => rangeMiss(code, stages, o.lowerBound, collection.limit - 1);
+  let stageIndex = 0;
   let done = 0;
-  let stopAt: IsdStop | null = null;
-  const missNow = (iters: number) => missProbability(success, o.startIteration + iters, o.lowerBound, collection.limit - 1);
-  if (o.targetMiss > 0 && missNow(0) <= o.targetMiss) return { iterations: 0, stoppedBy: 'target-miss' };
-  await runOrdered<IsdChunkResult>(
-    pool,
-    chunks,
-    (c) => {
-      const iterations = Number.isFinite(budget) ? Math.min(ISD_CHUNK_ITERATIONS, budget - c * ISD_CHUNK_ITERATIONS) : ISD_CHUNK_ITERATIONS;
-      const payload: IsdChunkPayload = { basis, maxWeight: collection.limit, iterations, seed: o.seed, stream: o.streamBase + firstChunk + c };
-      return { kind: 'distance.isd', payload };
-    },
-    (_c, r) => {
-      if (stopAt) return;
-      const C = basis.codeWords;
-      for (let i = 0; i < r.count; i++) collection.add(r.words.subarray(i * C, (i + 1) * C));
-      done += r.iterations;
-      const miss = missNow(done);
-      onChunk?.(done, miss);
-      if (o.targetMiss > 0 && miss <= o.targetMiss) stopAt = 'target-miss';
-      else if (done >= budget) stopAt = 'iterations';
-    },
-    () => stopAt !== null || shouldStop(),
-  );
-  return { iterations: done, stoppedBy: stopAt ?? (done >= budget ? 'iterations' : 'stopped') };
+  for (;;) {
+    if (o.targetMiss > 0 && missNow() <= o.targetMiss) return { stoppedBy: 'target-miss' };
+    if (done >= o.maxIterations) return { stoppedBy: 'iterations' };
+    if (shouldStop()) return { stoppedBy: 'stopped' };
+    const U = collection.limit;
+    if (U - 1 < Math.max(1, o.lowerBound)) return { stoppedBy: 'target-miss' };
+    let plan;
+    try {
+      plan = planSearch({
+        n: code.effectiveLength,
+        k: code.dim,
+        maxWeight: U - 1,
+        method: 'isd',
+        targetMiss: o.targetMiss > 0 ? o.targetMiss : 1e-6,
+        density: code.density.mean,
+        sparseRows: code.density.sparseRows,
+      });
+    } catch (e) {
+      // the planner finds no variant that can reach weight U − 1 (too few columns outside the information set)
+      if (e instanceof InputError) return { stoppedBy: 'unreachable' };
+      throw e;
+    }
+    if (plan.method !== 'isd') throw new Error('distance: the planner was asked for information-set search');
+    const settings = plan.settings;
+    const per = plan.chunkIterations;
+    const stage: IsdStage = { settings, iterations: 0 };
+    stages.push(stage);
+    const chunks = STAGE_CHUNKS[Math.min(stageIndex, STAGE_CHUNKS.length - 1)]!;
+    stageIndex++;
+    const budget = o.maxIterations - done;
+    const count = Math.min(chunks, Math.ceil(budget / per));
+    const first = state.nextChunk;
+    let stop: IsdStop | null = null;
+    let merged = 0;
+    await runOrdered<IsdChunkResult>(
+      pool,
+      count,
+      (c) => {
+        const task: IsdChunkTask = {
+          rows: code.dim,
+          cols: code.n,
+          generator: code.generator,
+          ...(code.filter ? { filter: code.filter } : {}),
+          maxWeight: U,
+          settings,
+          seed: o.seed,
+          stream: o.streamBase + first + c,
+          iterations: Math.min(per, budget - c * per),
+          maxWords: CHUNK_MAX_WORDS,
+        };
+        return { kind: 'search.isd', payload: task };
+      },
+      (_c, r) => {
+        if (stop) return;
+        merged++;
+        const S = (code.n + 31) >>> 5;
+        for (let i = 0; i < r.count; i++) collection.add(r.words.subarray(i * S, (i + 1) * S));
+        (stage as { iterations: number }).iterations += r.iterations;
+        done += r.iterations;
+        state.iterations += r.iterations;
+        const miss = missNow();
+        onChunk?.(state.iterations, miss);
+        if (o.targetMiss > 0 && miss <= o.targetMiss) stop = 'target-miss';
+        else if (done >= o.maxIterations) stop = 'iterations';
+      },
+      () => stop !== null || shouldStop(),
+    );
+    state.nextChunk = first + merged;
+    if (stop) return { stoppedBy: stop };
+    if (merged < count) return { stoppedBy: 'stopped' };
+  }
 }

@@ -1,16 +1,16 @@
+import { grayChunk } from '../search/gray.js';
+import { isdChunk } from '../search/isd.js';
+import { combinationChunkTask } from '../distance/certify.js';
+
 /**
  * Task kinds a worker can run, each a pure function of a structured-clonable payload.
  * Add one line per kind; the functions live with their stage (search, decode, ...), not here.
  */
-import { combinationChunkTask } from '../distance/certify.js';
-import { grayChunkTask } from '../distance/exhaustive.js';
-import { isdChunkTask } from '../distance/upper.js';
-
 export type TaskHandler = (payload: never) => unknown;
 
 export const handlers: Record<string, TaskHandler> = {
   echo: ((p: unknown) => p) as TaskHandler,
-  'distance.isd': isdChunkTask as TaskHandler,
+  'search.gray': grayChunk as TaskHandler,
+  'search.isd': isdChunk as TaskHandler,
   'distance.combinations': combinationChunkTask as TaskHandler,
-  'distance.gray': grayChunkTask as TaskHandler,
 };

@@ -1,0 +1,132 @@
+import { basename } from 'node:path';
+import type { Command } from 'commander';
+import type { BitMatrix } from '../gf2/bitmatrix.js';
+import { matrixHash } from '../codes/hash.js';
+import { formatBudget, parseBudget } from '../condition/budget.js';
+import { verifyCandidates } from '../condition/candidates.js';
+import { conditionSide, type ConditionedSide, type ConditionRequest } from '../condition/condition.js';
+import { LATENCY_MODELS, LATENCY_UNITS } from '../condition/latency.js';
+import type { Provenance } from '../condition/provenance.js';
+import { STRATEGIES } from '../condition/select.js';
+import { InputError } from '../errors.js';
+import { type MatrixFormat, writeMatrixFile } from '../formats/index.js';
+import { writeJsonFile } from '../formats/json-out.js';
+import { readCandidateWords } from '../formats/words-file.js';
+import { VERSION } from '../version.js';
+import { choiceOption, codeOptions, intOption, loadCodeInput, printJson, type CodeOptions } from './input.js';
+import { FORMATS } from './make.js';
+
+export interface ConditionCliOptions extends CodeOptions {
+  words?: string;
+  side?: string;
+  budget?: string;
+  strategy?: string;
+  seed?: string;
+  out?: string;
+  format?: string;
+  json?: boolean;
+  basis?: string;
+  iterations?: string;
+  latencyModel?: string;
+}
+
+/** The shared options of condition and trim. */
+export function conditioningOptions(cmd: Command): Command {
+  return cmd
+    .option('--budget <list>', 'rows=N,extra=N,edges=E,row-weight=W,col-degree=D,latency=T (any combination)')
+    .option('--strategy <s>', STRATEGIES.join(', '), 'lightest')
+    .option('--iterations <n>', 'BP iterations the latency budget is for', '3')
+    .option('--latency-model <m>', `${LATENCY_MODELS.join(', ')} (see README)`, 'serial')
+    .option('--seed <s>', 'seed for tie-breaks and the trial strategy', '1')
+    .option('--out <prefix>', 'write the bundle: PREFIX.<side>.EXT, PREFIX.<side>-map.EXT, PREFIX.provenance.json')
+    .option('--format <fmt>', 'mtx, alist, dense or json', 'mtx')
+    .option('--json', 'print one JSON object');
+}
+
+export function summaryLines(s: ConditionedSide, units: string): string[] {
+  const row = (name: string, f: ConditionedSide['before']) =>
+    `  ${name.padEnd(7)} ${String(f.rows).padStart(6)} ${String(f.edges).padStart(7)} ${String(f.maxRowWeight).padStart(8)} ${String(f.maxColDegree).padStart(8)} ${String(f.cycles['4']).padStart(10)} ${String(f.cycles['6']).padStart(12)} ${String(f.latency).padStart(10)}`;
+  return [
+    `side ${s.side}: ${s.added.length} redundant rows added (${Object.entries(s.addedByWeight).map(([w, c]) => `${c} of weight ${w}`).join(', ') || 'none'}), rank ${s.rank}`,
+    `  ${''.padEnd(7)} ${'rows'.padStart(6)} ${'edges'.padStart(7)} ${'max row'.padStart(8)} ${'max col'.padStart(8)} ${'4-cycles'.padStart(10)} ${'6-cycles'.padStart(12)} ${'latency'.padStart(10)}  (${units})`,
+    row('before', s.before),
+    row('after', s.after),
+  ];
+}
+
+/** Write matrices, maps and provenance; returns the provenance object. */
+export function writeBundle(
+  prefix: string, format: MatrixFormat, results: { side: string; out: ConditionedSide; candidates: number; dropped: ConditionedSide extends never ? never : { duplicate: number; originalRow: number; zero: number } }[],
+  base: Omit<Provenance, 'sides'>,
+): Provenance {
+  const sides: Provenance['sides'] = {};
+  for (const r of results) {
+    const name = r.side === 'h' ? 'h' : `h${r.side}`;
+    const matrix = `${prefix}.${name}.${format}`;
+    const map = `${prefix}.${name}-map.${format}`;
+    writeMatrixFile(matrix, r.out.matrix, format);
+    writeMatrixFile(map, r.out.map, format);
+    sides[r.side] = {
+      files: { matrix: basename(matrix), map: basename(map) },
+      outputHash: matrixHash(r.out.matrix),
+      rank: r.out.rank,
+      candidates: r.candidates,
+      dropped: r.dropped,
+      added: r.out.added.length,
+      addedByWeight: r.out.addedByWeight,
+      before: r.out.before,
+      after: r.out.after,
+    };
+  }
+  const prov: Provenance = { ...base, sides };
+  writeJsonFile(`${prefix}.provenance.json`, prov);
+  return prov;
+}
+
+export function registerCondition(program: Command): void {
+  conditioningOptions(codeOptions(program.command('condition').description('assemble overcomplete check matrices within a budget and export them with their syndrome map')))
+    .requiredOption('--words <file>', 'candidate words: search --json output or a search --out words file')
+    .option('--side <side>', 'x, z or both (default: the sides present in --words)')
+    .option('--basis <b>', 'all (keep every original row) or minimal (a full-rank subset)', 'all')
+    .action((o: ConditionCliOptions) => {
+      const input = loadCodeInput(o);
+      const budget = parseBudget(o.budget);
+      const strategy = choiceOption('strategy', o.strategy, STRATEGIES, 'lightest');
+      const latencyModel = choiceOption('latency-model', o.latencyModel, LATENCY_MODELS, 'serial');
+      const iterations = intOption('iterations', o.iterations, 3, 1);
+      const format = choiceOption('format', o.format, FORMATS, 'mtx');
+      const basis = choiceOption('basis', o.basis, ['all', 'minimal'] as const, 'all');
+      const words = readCandidateWords(o.words!);
+      const matrices: { side: string; h: BitMatrix }[] =
+        input.kind === 'matrix' ? [{ side: 'h', h: input.h }] : [{ side: 'x', h: input.code.hx }, { side: 'z', h: input.code.hz }];
+      const wanted = o.side === undefined ? [...words.keys()] : o.side === 'both' ? ['x', 'z'] : [choiceOption('side', o.side, ['x', 'z', 'h'] as const, 'x')];
+      const todo = matrices.filter((m) => wanted.includes(m.side));
+      if (todo.length === 0) throw new InputError(`--words ${o.words} has words for side(s) ${[...words.keys()].join(', ')}, none of which this input has`);
+      if (strategy === 'trial') throw new InputError('--strategy trial: not available yet (needs the trial decoding engine)');
+      const results = todo.map(({ side, h }) => {
+        const sup = words.get(side);
+        if (!sup) throw new InputError(`--words ${o.words} has no words for side ${side}`);
+        const candidates = verifyCandidates(h, sup, `${o.words} (side ${side})`);
+        const req: ConditionRequest = { side, h, candidates, basis, budget, latencyModel, iterations, strategy, seed: o.seed ?? '1', symmetry: input.symmetry };
+        return { side, out: conditionSide(req), candidates: candidates.words.length, dropped: candidates.dropped };
+      });
+      const inputs: Record<string, string> = {};
+      for (const m of matrices) inputs[m.side === 'h' ? 'h' : `h${m.side}`] = matrixHash(m.h);
+      const base = {
+        tool: 'overcheck' as const, version: VERSION, command: process.argv.slice(2), seed: o.seed ?? '1', strategy, budget, latencyModel, iterations, basis, inputs,
+      };
+      const prov = o.out ? writeBundle(o.out, format, results, base) : null;
+      const summary = {
+        strategy, budget, latencyModel, iterations, seed: o.seed ?? '1',
+        sides: Object.fromEntries(results.map((r) => [r.side, { added: r.out.added.length, addedByWeight: r.out.addedByWeight, before: r.out.before, after: r.out.after, candidates: r.candidates, dropped: r.dropped }])),
+        ...(prov ? { provenance: `${o.out}.provenance.json` } : {}),
+      };
+      if (o.json) printJson(summary);
+      else {
+        const lines = [`strategy ${strategy}, budget ${formatBudget(budget)}, latency model ${latencyModel} at ${iterations} iterations, seed ${o.seed ?? '1'}`];
+        for (const r of results) lines.push(...summaryLines(r.out, LATENCY_UNITS[latencyModel]));
+        if (prov) lines.push(`wrote ${Object.values(prov.sides).flatMap((s) => [s.files.matrix, s.files.map]).join(', ')}, ${basename(o.out!)}.provenance.json`);
+        process.stdout.write(lines.join('\n') + '\n');
+      }
+    });
+}

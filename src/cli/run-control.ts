@@ -1,0 +1,58 @@
+import { defaultWorkers, openPool, type TaskPool } from '../parallel/pool.js';
+import { floatOption, intOption } from './input.js';
+
+/**
+ * The imperative shell around a long computation: worker pool, time limit, SIGINT/SIGTERM (stop at the
+ * next chunk boundary and save), and a progress line on stderr when it is a terminal (or --progress).
+ */
+export interface RunControl {
+  readonly pool: TaskPool;
+  readonly shouldStop: () => boolean;
+  report(label: string, state: { iterations: number; counts?: Record<string, number>; missProbability?: Record<string, number> }): void;
+  endLine(): void;
+  close(): Promise<void>;
+}
+
+export async function startRun(o: { workers?: string; timeLimit?: string; progress?: boolean; what: string; resumeHint?: string }): Promise<RunControl> {
+  const workers = intOption('workers', o.workers, defaultWorkers(), 0);
+  const limit = o.timeLimit !== undefined ? floatOption('time-limit', o.timeLimit, 0, 0) : Infinity;
+  const started = Date.now();
+  let interrupted = false;
+  const onSignal = (sig: string) => {
+    if (interrupted) process.exit(130);
+    interrupted = true;
+    process.stderr.write(`\novercheck: ${sig}: finishing the work in flight and saving${o.resumeHint ? ` to ${o.resumeHint}` : ''} (again to abort)\n`);
+  };
+  const onInt = () => onSignal('SIGINT');
+  const onTerm = () => onSignal('SIGTERM');
+  process.on('SIGINT', onInt);
+  process.on('SIGTERM', onTerm);
+  const pool = await openPool(workers);
+  const show = o.progress === true || process.stderr.isTTY === true;
+  let last = 0;
+  let shown = false;
+  return {
+    pool,
+    shouldStop: () => interrupted || (Date.now() - started) / 1000 >= limit,
+    report(label, state) {
+      if (!show) return;
+      const now = Date.now();
+      if (now - last < 500) return;
+      last = now;
+      const secs = (now - started) / 1000;
+      const counts = state.counts ? Object.entries(state.counts).filter(([, c]) => c > 0).map(([w, c]) => `${w}:${c}`).join(' ') : '';
+      const miss = state.missProbability ? Math.max(...Object.values(state.missProbability)) : NaN;
+      process.stderr.write(`\r${o.what} ${label}: ${state.iterations} iterations, ${(state.iterations / Math.max(secs, 1e-3)).toFixed(0)}/s, words ${counts}${Number.isNaN(miss) ? '' : `, miss ≤ ${miss.toExponential(1)}`}   `);
+      shown = true;
+    },
+    endLine() {
+      if (shown) process.stderr.write('\n');
+      shown = false;
+    },
+    async close() {
+      process.off('SIGINT', onInt);
+      process.off('SIGTERM', onTerm);
+      await pool.close();
+    },
+  };
+}

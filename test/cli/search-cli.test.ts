@@ -1,0 +1,105 @@
+import { spawn, spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+
+const BIN = join(import.meta.dirname, '..', '..', 'bin', 'overcheck.js');
+const HGP = 'hgp:h1=(regular:n=40,col=3,row=4,seed=1)';
+
+function run(args: string[]) {
+  const r = spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8' });
+  return { code: r.status, out: r.stdout, err: r.stderr };
+}
+
+function wordsIn(path: string): { words: Set<string>; iterations: number } {
+  const words = new Set<string>();
+  let iterations = 0;
+  for (const line of readFileSync(path, 'utf8').split('\n')) {
+    if (!line.trim()) continue;
+    let o: { support?: number[]; progress?: { iterations: number } };
+    try {
+      o = JSON.parse(line);
+    } catch {
+      continue; // a line cut by the kill
+    }
+    if (o.support) words.add(o.support.join(','));
+    if (o.progress) iterations = o.progress.iterations;
+  }
+  return { words, iterations };
+}
+
+async function waitFor(cond: () => boolean, ms: number): Promise<void> {
+  const t0 = Date.now();
+  while (!cond()) {
+    if (Date.now() - t0 > ms) throw new Error('timed out waiting');
+    await new Promise((r) => setTimeout(r, 100));
+  }
+}
+
+describe('search command', () => {
+  it('prints the JSON contract for one side and for both', () => {
+    const one = run(['search', '--family', 'gb:l=24,a=1+x^2+x^8+x^15,b=1+x^2+x^12+x^17', '--side', 'x', '--max-weight', '12', '--json']);
+    expect(one.code).toBe(0);
+    const r = JSON.parse(one.out);
+    for (const k of ['side', 'maxWeight', 'method', 'seed', 'iterations', 'counts', 'orbits', 'missProbability', 'complete', 'words']) expect(r).toHaveProperty(k);
+    expect(r.complete).toBe(true);
+    expect(r.counts['8']).toBe(24); // the 24 weight-8 rows of HX
+    const both = JSON.parse(run(['search', '--family', 'toric:L=3', '--side', 'both', '--json']).out);
+    expect(Object.keys(both).sort()).toEqual(['x', 'z']);
+    // common practice: the toric code's checks have weight 4; with L = 3 the lightest words are the 9 checks
+    expect(both.x.counts['4']).toBe(9);
+  });
+
+  it('rejects bad options with exit 2 and one line', () => {
+    for (const args of [
+      ['search', '--family', 'toric:L=3'],
+      ['search', '--family', 'toric:L=3', '--side', 'w'],
+      ['search', '--family', 'toric:L=3', '--side', 'x', '--target-miss', 'abc'],
+      ['search', '--family', 'toric:L=3', '--side', 'x', '--symmetry', 'blocks=2,l=4'],
+    ]) {
+      const r = run(args);
+      expect(r.code).toBe(2);
+      expect(r.err.trim().split('\n')).toHaveLength(1);
+      expect(r.err).toMatch(/^overcheck: /);
+    }
+  });
+
+  it('a killed --out run resumes without losing words and sums the iterations', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'oc-search-'));
+    const file = join(dir, 'words.jsonl');
+    const child = spawn(process.execPath, [BIN, 'search', '--family', HGP, '--side', 'x', '--max-weight', '10', '--method', 'isd', '--target-miss', '1e-30', '--workers', '1', '--out', file], { stdio: 'ignore' });
+    await waitFor(() => existsSync(file) && wordsIn(file).iterations > 0, 60_000);
+    child.kill('SIGKILL');
+    await new Promise((r) => child.on('exit', r));
+    const before = wordsIn(file);
+    expect(before.words.size).toBeGreaterThan(0);
+    const resumed = run(['search', '--family', HGP, '--side', 'x', '--max-weight', '10', '--method', 'isd', '--iterations', '8', '--workers', '1', '--resume', file, '--json']);
+    expect(resumed.err).toBe('');
+    expect(resumed.code).toBe(0);
+    const r = JSON.parse(resumed.out);
+    const after = new Set<string>(r.words.map((w: number[]) => w.join(',')));
+    for (const w of before.words) expect(after.has(w)).toBe(true);
+    expect(r.iterations).toBe(before.iterations + 8);
+    expect(r.streams.first).toBeGreaterThan(0);
+    const final = wordsIn(file);
+    expect(final.iterations).toBe(r.iterations);
+    expect(final.words).toEqual(after);
+  }, 120_000);
+
+  it('SIGINT stops at a chunk boundary, saves, says how to resume and exits 130', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'oc-search-'));
+    const file = join(dir, 'words.jsonl');
+    const child = spawn(process.execPath, [BIN, 'search', '--family', HGP, '--side', 'x', '--max-weight', '10', '--method', 'isd', '--target-miss', '1e-30', '--workers', '1', '--out', file], { stdio: ['ignore', 'pipe', 'pipe'] });
+    let err = '';
+    child.stderr.on('data', (d) => (err += d));
+    await waitFor(() => existsSync(file) && wordsIn(file).iterations > 0, 60_000);
+    child.kill('SIGINT');
+    const code = await new Promise((r) => child.on('exit', r));
+    expect(code).toBe(130);
+    expect(err).toMatch(/--resume/);
+    const text = readFileSync(file, 'utf8');
+    expect(text).toMatch(/"summary"/);
+    expect(text).toMatch(/"stopReason":"interrupted"/);
+  }, 120_000);
+});
