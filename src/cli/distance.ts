@@ -4,6 +4,8 @@ import { readMatrixFile } from '../formats/index.js';
 import { DEFAULT_SEED } from '../parallel/seeds.js';
 import { choiceOption, codeOptions, floatOption, intOption, loadCodeInput, printJson, type CodeOptions } from './input.js';
 import { EXIT_NO, ExitWith } from './main.js';
+import { startRun } from './run-control.js';
+import type { AuditProgress } from '../distance/audit.js';
 
 interface DistanceOptions extends CodeOptions {
   generator?: string;
@@ -25,7 +27,7 @@ export function registerDistance(program: Command): void {
     .option('--side <side>', 'x, z or both (CSS codes)')
     .option('--method <method>', 'auto, exhaustive, isd or certify', 'auto')
     .option('--seed <seed>', `random seed (default ${DEFAULT_SEED})`)
-    .option('--workers <n>', 'worker threads (default: number of cores; 0 runs inline)')
+    .option('--workers <n>', 'worker threads (default: number of cores; 0 runs on the main thread)')
     .option('--time-limit <sec>', 'stop after this many seconds and report the bounds reached')
     .option('--iterations <n>', 'information-set iterations (alone: exactly this many)')
     .option('--target-miss <p>', 'stop the information-set search once the miss probability is below p (default 1e-6)')
@@ -36,11 +38,9 @@ export function registerDistance(program: Command): void {
       const { auditDistance, DISTANCE_METHODS, DEFAULT_ENUMERATION_LIMIT } = await import('../distance/audit.js');
       const { classicalCheckProblem, classicalGeneratorProblem } = await import('../distance/problem.js');
       const { formatDistanceText } = await import('../distance/result.js');
-      const { openPool, defaultWorkers } = await import('../parallel/pool.js');
 
       const method = choiceOption('method', o.method, DISTANCE_METHODS, 'auto');
-      const seed = o.seed === undefined ? DEFAULT_SEED : /^\d+$/.test(o.seed) ? Number(o.seed) : o.seed;
-      const workers = intOption('workers', o.workers, defaultWorkers(), 0);
+      const seed = o.seed ?? String(DEFAULT_SEED);
       const timeLimit = floatOption('time-limit', o.timeLimit, Infinity, 0);
       const iterations = o.iterations === undefined ? undefined : intOption('iterations', o.iterations, 0, 0);
       const targetMiss = o.targetMiss === undefined ? undefined : floatOption('target-miss', o.targetMiss, 0, 0, 1);
@@ -64,46 +64,45 @@ export function registerDistance(program: Command): void {
       }
 
       const started = Date.now();
-      const deadline = started + timeLimit * 1000;
-      let interrupted = false;
-      const onSigint = () => {
-        interrupted = true;
-      };
-      process.once('SIGINT', onSigint);
-      const showProgress = o.progress === true || process.stderr.isTTY === true;
+      const control = await startRun({ workers: o.workers, timeLimit: o.timeLimit, progress: o.progress, what: 'distance' });
+      const show = o.progress === true || process.stderr.isTTY === true;
       const tty = process.stderr.isTTY === true;
       let lastShown = 0;
-      let shownSomething = false;
-      const pool = await openPool(workers);
+      let shown = false;
+      const progress = (p: AuditProgress) => {
+        const now = Date.now();
+        if (now - lastShown < 500) return;
+        lastShown = now;
+        const what =
+          p.phase === 'isd'
+            ? `information-set search: ${p.iterations} information sets, miss ≤ ${p.missProbability.toExponential(1)}`
+            : p.phase === 'enumeration'
+              ? `enumeration: level ${p.level}, ${p.combinations.toExponential(2)} combinations`
+              : `exhaustive: ${p.combinations.toExponential(2)} of 2^${p.level} words`;
+        const name = p.key === 'dx' ? 'dX' : p.key === 'dz' ? 'dZ' : 'd';
+        const line = `distance: ${p.lower} ≤ ${name} ≤ ${p.upper}; ${what}; ${((now - started) / 1000).toFixed(1)} s`;
+        process.stderr.write(tty ? `\r${line}\x1b[K` : `${line}\n`);
+        shown = true;
+      };
+      let interrupted = false;
       let report;
       try {
-        report = await auditDistance(pool, input, { method, seed, iterations, targetMiss, enumerationLimit }, {
-          shouldStop: () => interrupted || Date.now() >= deadline,
-          stopReason: () => (interrupted ? 'interrupted' : 'time-limit'),
-          progress: showProgress
-            ? (p) => {
-                const now = Date.now();
-                if (now - lastShown < (tty ? 250 : 1000)) return;
-                lastShown = now;
-                const what =
-                  p.phase === 'isd'
-                    ? `search ${p.iterations} iterations, miss ${p.missProbability.toExponential(1)}`
-                    : p.phase === 'enumeration'
-                      ? `enumeration level ${p.level}, ${p.combinations.toExponential(2)} combinations`
-                      : `exhaustive ${p.combinations.toExponential(2)} words`;
-                const line = `${p.key}: ${p.lower}..${p.upper}  ${what}  ${((now - started) / 1000).toFixed(1)} s`;
-                process.stderr.write(tty ? `\r${line}\x1b[K` : `${line}\n`);
-                shownSomething = true;
-              }
-            : undefined,
+        report = await auditDistance(control.pool, input, { method, seed, iterations, targetMiss, enumerationLimit }, {
+          shouldStop: control.shouldStop,
+          stopReason: () => {
+            if ((Date.now() - started) / 1000 >= timeLimit) return 'time-limit';
+            interrupted = true;
+            return 'interrupted';
+          },
+          ...(show ? { progress } : {}),
         });
       } finally {
-        process.removeListener('SIGINT', onSigint);
-        await pool.close();
-        if (shownSomething && tty) process.stderr.write('\n');
+        if (shown && tty) process.stderr.write('\n');
+        await control.close();
       }
       if (o.json) printJson(report);
       else process.stdout.write(formatDistanceText(report) + `elapsed ${((Date.now() - started) / 1000).toFixed(2)} s\n`);
+      if (interrupted) throw new ExitWith(130);
       if (method === 'certify') {
         const certified = report.kind === 'classical' ? report.d.certified : [report.dx, report.dz].every((s) => s === undefined || s.certified);
         if (!certified) throw new ExitWith(EXIT_NO);

@@ -100,11 +100,16 @@ export async function auditSide(pool: TaskPool, problem: DistanceProblem, stream
     combinations += r.combinations;
     return r;
   };
-  const enumerationSummary = () => ({
-    sets: plan.sets.map((x, j) => ({ size: x.columns.length, rank: x.rank, level: schedule.levels[j]! })),
-    bound: schedule.bound(),
-    combinations,
-  });
+  const enumerationSummary = () => {
+    const U = collection.lightest();
+    const toCertify = schedule.bound() >= U ? 0 : remainingCost(plan, schedule.levels, U, 'reach');
+    return {
+      sets: plan.sets.map((x, j) => ({ size: x.columns.length, rank: x.rank, level: schedule.levels[j]! })),
+      bound: schedule.bound(),
+      combinations,
+      toCertify: Number.isFinite(toCertify) ? toCertify : null,
+    };
+  };
 
   // 1. cheap first lower bound (and often the minimum itself, which keeps the limit W small from here on)
   const free = await enumerate('exceed', FREE_ENUMERATION);
@@ -173,7 +178,6 @@ export async function auditSide(pool: TaskPool, problem: DistanceProblem, stream
         if (r.stoppedBy === 'stopped') stoppedBy = control.stopReason();
         else isdStop = r.stoppedBy === 'unreachable' ? 'iterations' : r.stoppedBy;
       }
-      stoppedBy = stoppedBy ?? 'enumeration-limit';
     }
   }
 

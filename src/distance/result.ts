@@ -20,6 +20,8 @@ export interface EnumerationSummary {
   /** Every codeword of the code (stabilizers included) that was not enumerated has weight ≥ bound. */
   readonly bound: number;
   readonly combinations: number;
+  /** Further combinations the enumeration needs to prove lower = upper (0 when it has; null: beyond reach). */
+  readonly toCertify: number | null;
 }
 
 export interface SideReport {
@@ -107,6 +109,10 @@ function sideLines(name: string, s: SideReport, partnerName: string | null): str
   if (s.enumeration) {
     const sets = s.enumeration.sets.map((x) => `${x.rank}${x.rank < s.dimension ? ' (partial)' : ''}@${x.level}`).join(', ');
     lines.push(`    enumeration: information sets rank@level ${sets}; ${s.enumeration.combinations} combinations; unseen words have weight ≥ ${s.enumeration.bound}`);
+    if (!s.certified) {
+      const more = s.enumeration.toCertify;
+      lines.push(`    certifying needs ${more === null ? 'levels beyond 2^53 combinations' : `about ${more.toExponential(2)} more combinations`} (--method certify)`);
+    }
   }
   return lines;
 }

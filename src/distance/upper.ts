@@ -10,6 +10,7 @@
 import type { IsdChunkResult, IsdChunkTask, IsdSettings } from '../search/isd.js';
 import { systematicDensity } from '../search/isd.js';
 import { missProbability as settingsMiss, planSearch } from '../search/plan.js';
+import { leeBrickellSuccess } from '../search/probability.js';
 import { type TaskPool, runOrdered } from '../parallel/pool.js';
 import { InputError } from '../errors.js';
 import type { AugmentedBasis } from './augmented.js';
@@ -93,7 +94,7 @@ export interface IsdPhaseResult {
 
 /**
  * Search in stages. Each stage is planned (settings by the search stage's planner, for weight U − 1, the
- * heaviest weight that would improve the bound) from the state after the previous stage, and its chunks are
+ * heaviest weight that would improve the bound, or the heaviest weight a run can hit if lower) from the state after the previous stage, and its chunks are
  * dispatched with W = U at the stage's start: everything a chunk does is fixed by the merged state at a
  * stage boundary and its stream number, so the result is the same for any worker count. Chunks are merged in
  * order and the stop rules are evaluated after each; chunks running past the stopping point are ignored.
@@ -118,12 +119,17 @@ export async function runInformationSetPhase(
     if (shouldStop()) return { stoppedBy: 'stopped' };
     const U = collection.limit;
     if (U - 1 < Math.max(1, o.lowerBound)) return { stoppedBy: 'target-miss' };
+    // plan for the heaviest weight below U that a run can hit at all (Lee–Brickell p = 2 success ≥ 1e-12 per
+    // information set); heavier words are beyond any number of iterations, whatever the settings
+    let planWeight = U - 1;
+    while (planWeight >= 1 && leeBrickellSuccess(code.effectiveLength, code.dim, planWeight, 2) < 1e-12) planWeight--;
+    if (planWeight < Math.max(1, o.lowerBound)) return { stoppedBy: 'unreachable' };
     let plan;
     try {
       plan = planSearch({
         n: code.effectiveLength,
         k: code.dim,
-        maxWeight: U - 1,
+        maxWeight: planWeight,
         method: 'isd',
         targetMiss: o.targetMiss > 0 ? o.targetMiss : 1e-6,
         density: code.density.mean,

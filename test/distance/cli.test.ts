@@ -38,7 +38,7 @@ describe('overcheck distance', () => {
       expect(j[side].certified).toBe(true);
     }
     expect(j.d).toMatchObject({ upper: 3, lower: 3 });
-    expect(j.seed).toBe(1);
+    expect(j.seed).toBe('1');
   });
 
   it('text output names both sides and d', async () => {
