@@ -129,5 +129,6 @@ if (full) {
   console.log(`[[90,8,10]] dX certify: ${a.secs.toFixed(1)} s wall, dX = ${dx.upper}, certified ${dx.certified}, ${dx.count} words (exact: ${dx.countExact}), ${dx.enumeration?.combinations.toExponential(2)} combinations`);
   const b = cli(['--family', BB108, '--method', 'certify', '--side', 'x', '--time-limit', '120']);
   const dx2 = b.json['dx'] as Side;
-  console.log(`[[108,8,10]] dX after 120 s: ${dx2.lower} ≤ dX ≤ ${dx2.upper}, certified ${dx2.certified}, ${dx2.enumeration?.combinations.toExponential(2)} combinations`);
+  console.log(`[[108,8,10]] dX certify (limit 120 s): ${b.secs.toFixed(1)} s wall, ${dx2.lower} ≤ dX ≤ ${dx2.upper}, certified ${dx2.certified}, ` +
+    `${dx2.count} words (exact: ${dx2.countExact}), ${dx2.enumeration?.combinations.toExponential(2)} combinations`);
 }

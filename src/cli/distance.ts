@@ -17,6 +17,7 @@ interface DistanceOptions extends CodeOptions {
   iterations?: string;
   targetMiss?: string;
   enumerationLimit?: string;
+  maxWords?: string;
   json?: boolean;
   progress?: boolean;
 }
@@ -32,10 +33,11 @@ export function registerDistance(program: Command): void {
     .option('--iterations <n>', 'information-set iterations (alone: exactly this many)')
     .option('--target-miss <p>', 'stop the information-set search once the miss probability is below p (default 1e-6)')
     .option('--enumeration-limit <n>', 'largest certifying enumeration auto plans for, in combinations (default 1e9)')
+    .option('--max-words <n>', 'most minimum-weight words kept per side (default 200000); beyond it the count is a lower bound')
     .option('--progress', 'progress on stderr even when it is not a terminal')
     .option('--json', 'print one JSON object')
     .action(async (o: DistanceOptions) => {
-      const { auditDistance, DISTANCE_METHODS, DEFAULT_ENUMERATION_LIMIT } = await import('../distance/audit.js');
+      const { auditDistance, DISTANCE_METHODS, DEFAULT_ENUMERATION_LIMIT, DEFAULT_MAX_WORDS } = await import('../distance/audit.js');
       const { classicalCheckProblem, classicalGeneratorProblem } = await import('../distance/problem.js');
       const { formatDistanceText } = await import('../distance/result.js');
 
@@ -45,6 +47,7 @@ export function registerDistance(program: Command): void {
       const iterations = o.iterations === undefined ? undefined : intOption('iterations', o.iterations, 0, 0);
       const targetMiss = o.targetMiss === undefined ? undefined : floatOption('target-miss', o.targetMiss, 0, 0, 1);
       const enumerationLimit = floatOption('enumeration-limit', o.enumerationLimit, DEFAULT_ENUMERATION_LIMIT, 0);
+      const maxWords = intOption('max-words', o.maxWords, DEFAULT_MAX_WORDS, 1);
 
       let input: Parameters<typeof auditDistance>[1];
       if (o.generator !== undefined) {
@@ -87,7 +90,7 @@ export function registerDistance(program: Command): void {
       let interrupted = false;
       let report;
       try {
-        report = await auditDistance(control.pool, input, { method, seed, iterations, targetMiss, enumerationLimit }, {
+        report = await auditDistance(control.pool, input, { method, seed, iterations, targetMiss, enumerationLimit, maxWords }, {
           shouldStop: control.shouldStop,
           stopReason: () => {
             if ((Date.now() - started) / 1000 >= timeLimit) return 'time-limit';

@@ -38,6 +38,7 @@ export const DEFAULT_TARGET_MISS = 1e-6;
 /** Information-set warm-up before an enumeration (which finds the minimum by itself anyway). */
 export const WARMUP_TARGET_MISS = 1e-3;
 export const DEFAULT_ENUMERATION_LIMIT = 1e9;
+export const DEFAULT_MAX_WORDS = 200_000;
 /** Stream offset of side z, so that `--side z` reproduces the z half of `--side both`. */
 export const Z_STREAM_BASE = 2 ** 30;
 
@@ -50,6 +51,8 @@ export interface AuditSettings {
   readonly targetMiss?: number;
   /** Largest enumeration auto plans for (combinations). */
   readonly enumerationLimit?: number;
+  /** Most minimum-weight words kept per side (default DEFAULT_MAX_WORDS); beyond it the count is "at least". */
+  readonly maxWords?: number;
 }
 
 export interface AuditProgress {
@@ -75,7 +78,7 @@ export async function auditSide(pool: TaskPool, problem: DistanceProblem, stream
   const b = problem.basis;
   const K = b.dim;
   if (K === 0) throw new InputError(`${problem.key}: the code has dimension 0, so there is no nonzero word and no distance`);
-  const collection = new WordCollection(b.codeWords, b.n, true);
+  const collection = new WordCollection(b.codeWords, b.n, true, s.maxWords ?? DEFAULT_MAX_WORDS);
   for (const w of problem.known) collection.add(w);
   if (collection.size === 0) throw new InputError(`${problem.key}: no nonzero word to start from`);
   const stop = () => control.shouldStop();
@@ -124,7 +127,7 @@ export async function auditSide(pool: TaskPool, problem: DistanceProblem, stream
     const U = collection.lightest();
     return finish(problem, collection, {
       lower: all ? U : Math.min(schedule.bound(), U),
-      countExact: all,
+      countExact: all && !collection.truncated,
       method: r ? 'exhaustive' : 'brouwer-zimmermann',
       stoppedBy: all ? 'certified' : r?.overflow ? 'word-limit' : (stoppedBy ?? control.stopReason()),
       isd: { stages: [], miss: () => 1 },
@@ -183,9 +186,9 @@ export async function auditSide(pool: TaskPool, problem: DistanceProblem, stream
 
   const U = collection.lightest();
   const bound = schedule.bound();
-  const countExact = bound > U;
+  const countExact = bound > U && !collection.truncated;
   const certified = bound >= U;
-  if (countExact) stoppedBy = 'certified';
+  if (countExact || (bound > U && collection.truncated)) stoppedBy = 'certified';
   else if (certified && !stoppedBy) stoppedBy = 'certified-count-open';
   else if (!stoppedBy) stoppedBy = isdStop ?? 'iterations';
   return finish(problem, collection, {
@@ -228,6 +231,7 @@ function finish(problem: DistanceProblem, collection: WordCollection, f: Finish)
     certified,
     count: minimum.length,
     countExact: f.countExact,
+    truncated: collection.truncated,
     witness: packedSupport(minimum[0]!.word, 0, problem.basis.codeWords),
     anticommutesWith: partner,
     missProbability: miss,

@@ -62,23 +62,28 @@ export interface EnumerationPlan {
 // ---------------------------------------------------------------------------------------------------------
 // Binomial coefficients (exact as doubles below 2^53; larger values are reported as Infinity)
 
-const binomRows: number[][] = [[1]];
+const binomCache = new Map<number, number>();
+const LIMIT = 2n ** 53n;
 
-/** C(n, k) for 0 ≤ k ≤ n, exact when below 2^53, else Infinity. */
+/** C(n, k), exact when below 2^53, else Infinity. Exact integer arithmetic, cached; no table of size n². */
 export function binomial(n: number, k: number): number {
   if (k < 0 || k > n) return 0;
-  while (binomRows.length <= n) {
-    const prev = binomRows[binomRows.length - 1]!;
-    const row = new Array<number>(prev.length + 1);
-    row[0] = 1;
-    row[prev.length] = 1;
-    for (let i = 1; i < prev.length; i++) {
-      const v = prev[i - 1]! + prev[i]!;
-      row[i] = v >= 2 ** 53 ? Infinity : v;
+  const r = Math.min(k, n - k);
+  const key = n * 1048576 + r;
+  const hit = binomCache.get(key);
+  if (hit !== undefined) return hit;
+  let c = 1n;
+  let out = 1;
+  for (let i = 1; i <= r; i++) {
+    c = (c * BigInt(n - r + i)) / BigInt(i); // C(n − r + i, i), an integer at every step
+    if (c >= LIMIT) {
+      out = Infinity;
+      break;
     }
-    binomRows.push(row);
   }
-  return binomRows[n]![k]!;
+  if (out !== Infinity) out = Number(c);
+  binomCache.set(key, out);
+  return out;
 }
 
 /**
@@ -196,14 +201,26 @@ function combinationMatrix(b: AugmentedBasis, set: InformationSet, form: Uint32A
 }
 
 /**
- * Choose disjoint information sets: the natural column order and `tries − 1` further column orders
+ * Choose disjoint information sets: the natural column order and up to `tries − 1` further column orders
  * drawn from a fixed stream (the plan never depends on the user's seed), keeping the best rank profile.
+ * Large codes get fewer tries (about 10⁸ word operations of elimination in all), and none when the first
+ * profile is already the best possible (each set as large as the columns left allow).
  */
 export function planEnumeration(b: AugmentedBasis, tries = 8): EnumerationPlan {
   if (b.dim === 0) return { n: b.n, dim: 0, filterRows: b.filterRows, sets: [], matrices: [] };
   const natural = Array.from({ length: b.n }, (_, i) => i);
   let best = greedySets(b, natural);
-  for (let t = 1; t < tries; t++) {
+  const workPerTry = b.dim * b.dim * b.rowWords * best.sets.length;
+  const allowed = Math.max(1, Math.min(tries, Math.floor(1e8 / Math.max(1, workPerTry))));
+  const ideal = (sets: readonly InformationSet[]) => {
+    let left = b.n;
+    for (const x of sets) {
+      if (x.rank < Math.min(b.dim, left)) return false;
+      left -= x.rank;
+    }
+    return true;
+  };
+  for (let t = 1; t < allowed && !ideal(best.sets); t++) {
     const rng = streamRng('information-sets', t);
     const order = natural.slice();
     for (let i = order.length - 1; i > 0; i--) {
@@ -454,8 +471,13 @@ export interface ExactEnumeration {
   readonly weights: readonly number[];
   /** The final weight limit W (lowered to the lightest kept word in adaptive mode). */
   readonly maxWeight: number;
-  /** True when bound > min(W, n): `words` is exactly the set of filtered codewords of weight ≤ W. */
+  /**
+   * True when bound > min(W, n) and no word was dropped for capacity: `words` is exactly the set of filtered
+   * codewords of weight ≤ W.
+   */
   readonly complete: boolean;
+  /** Words within the limit were dropped because `maxWords` was reached. */
+  readonly truncated: boolean;
   readonly proof: EnumerationProof;
 }
 
@@ -472,6 +494,8 @@ export interface EnumerationOptions {
   readonly goal?: EnumerationGoal;
   /** Words to seed the collection with (e.g. an upper-bound witness in adaptive mode). */
   readonly seedWords?: readonly Uint32Array[];
+  /** Most words kept (default: no limit); beyond it the result is marked truncated and incomplete. */
+  readonly maxWords?: number;
 }
 
 /**
@@ -486,7 +510,7 @@ export function enumerateUpTo(generator: BitMatrix, maxWeight: number, filter?: 
   const goal = options.goal ?? 'exceed';
   const chunk = options.chunkSize ?? 1 << 20;
   const budget = options.budget ?? Infinity;
-  const collection = new WordCollection(basis.codeWords, maxWeight, options.adaptive ?? false);
+  const collection = new WordCollection(basis.codeWords, maxWeight, options.adaptive ?? false, options.maxWords ?? Infinity);
   for (const w of options.seedWords ?? []) collection.add(w);
   const schedule = new EnumerationSchedule(plan);
   let combinations = 0;
@@ -519,7 +543,8 @@ export function finishEnumeration(plan: EnumerationPlan, schedule: EnumerationSc
     words: fromRowVectors(plan.n, sorted.map((s) => s.word)),
     weights: sorted.map((s) => s.weight),
     maxWeight: collection.limit,
-    complete: goalMet(bound, collection.limit, 'exceed', plan.n),
+    complete: goalMet(bound, collection.limit, 'exceed', plan.n) && !collection.truncated,
+    truncated: collection.truncated,
     proof: {
       sets: plan.sets.map((s, j) => ({ size: s.columns.length, rank: s.rank, level: schedule.levels[j]! })),
       bound,

@@ -4,7 +4,6 @@
  * on a TaskPool and merged in chunk order, so the result is the same for any worker count.
  */
 import { type TaskPool, runOrdered } from '../parallel/pool.js';
-import type { AugmentedBasis } from './augmented.js';
 import {
   type CombinationMatrix,
   collectHits,

@@ -35,6 +35,8 @@ export interface SideReport {
   readonly count: number;
   /** Whether `count` is the exact number of words of weight `upper` ("at least" otherwise). */
   readonly countExact: boolean;
+  /** More minimum-weight words were met than --max-words allows keeping (the count is then "at least"). */
+  readonly truncated: boolean;
   /** Support of a word of weight `upper` (the smallest support in lexicographic order among those found). */
   readonly witness: readonly number[];
   /** Row of the partner logical basis (LZ for dX, LX for dZ) the witness anticommutes with; null for classical codes. */

@@ -16,9 +16,16 @@ export interface WeightedWord {
 export class WordCollection {
   private readonly byKey = new Map<string, WeightedWord>();
   private limitWeight: number;
+  private dropped = false;
 
-  constructor(readonly codeWords: number, limit: number, readonly adaptive: boolean) {
+  /** `capacity`: most words kept; further words within the limit are dropped and `truncated` is set. */
+  constructor(readonly codeWords: number, limit: number, readonly adaptive: boolean, readonly capacity = Infinity) {
     this.limitWeight = limit;
+  }
+
+  /** Whether a word within the limit had to be dropped for capacity (counts are then lower bounds). */
+  get truncated(): boolean {
+    return this.dropped;
   }
 
   /** The current weight limit W: words heavier than W are not kept. */
@@ -42,6 +49,10 @@ export class WordCollection {
     if (weight > this.limitWeight) return false;
     const key = keyOf(word, this.codeWords);
     if (this.byKey.has(key)) return false;
+    if (this.byKey.size >= this.capacity && !(this.adaptive && weight < this.limitWeight)) {
+      this.dropped = true;
+      return false;
+    }
     this.byKey.set(key, { word: word.slice(0, this.codeWords), weight });
     if (this.adaptive && weight < this.limitWeight) this.lower(weight);
     return true;
@@ -52,6 +63,7 @@ export class WordCollection {
     if (w >= this.limitWeight) return;
     this.limitWeight = w;
     for (const [k, v] of this.byKey) if (v.weight > w) this.byKey.delete(k);
+    this.dropped = false; // whatever was dropped was heavier than the new limit
   }
 
   /** Number of kept words of weight exactly w. */

@@ -1,5 +1,11 @@
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { describe, expect, it, vi } from 'vitest';
 import { main } from '../../src/cli/main.js';
+import { buildFamily } from '../../src/codes/families/index.js';
+import { fromDense, toDense } from '../../src/gf2/index.js';
+import { writeMatrixFile } from '../../src/formats/index.js';
 
 /** Run the CLI in-process; returns exit code, stdout and stderr. */
 async function run(...args: string[]): Promise<{ code: number; out: string; err: string }> {
@@ -49,12 +55,44 @@ describe('overcheck distance', () => {
     expect(r.out).toMatch(/^d +3 \(certified\)/m);
   });
 
+  it('--max-words caps the words kept: the count becomes a lower bound, the distance stays certified', async () => {
+    const full = JSON.parse((await run('--family', 'surface:d=5', '--side', 'x', '--json', '--workers', '0')).out);
+    expect(full.dx.countExact).toBe(true);
+    expect(full.dx.count).toBeGreaterThan(10);
+    const r = await run('--family', 'surface:d=5', '--side', 'x', '--json', '--workers', '0', '--max-words', '10');
+    const j = JSON.parse(r.out);
+    expect(j.dx).toMatchObject({ upper: 5, lower: 5, certified: true, count: 10, countExact: false, truncated: true }); // common practice: rotated surface d = 5
+  });
+
   it('a classical family is audited through its check matrix', async () => {
     const r = await run('--family', 'cyclic:n=7,g=1+x+x^3', '--json', '--workers', '0');
     expect(r.code).toBe(0);
     const j = JSON.parse(r.out);
     expect(j.kind).toBe('classical');
     expect(j.d).toMatchObject({ upper: 3, lower: 3, certified: true, count: 7 }); // source: MacWilliams & Sloane (1977)
+  });
+
+  it('reads --hx/--hz files and a --generator file', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'oc-distance-'));
+    const toric = buildFamily('toric:L=4');
+    if (toric.kind !== 'css') throw new Error('css');
+    writeMatrixFile(join(dir, 't.hx.mtx'), toric.code.hx, 'mtx');
+    writeMatrixFile(join(dir, 't.hz.alist'), toric.code.hz, 'alist');
+    const r = await run('--hx', join(dir, 't.hx.mtx'), '--hz', join(dir, 't.hz.alist'), '--json', '--workers', '0');
+    expect(r.code).toBe(0);
+    expect(JSON.parse(r.out).d).toEqual({ upper: 4, lower: 4, certified: true }); // common practice: toric L = 4 has d = 4
+    // extended Golay generator: the cyclic Golay generator with a parity bit appended
+    const golay = buildFamily('cyclic:n=23,g=x^11+x^10+x^6+x^5+x^4+x^2+1');
+    if (golay.kind !== 'classical') throw new Error('classical');
+    const ext = fromDense(toDense(golay.generator!).map((row) => [...row, row.reduce((a, v) => a ^ v, 0)]), 24);
+    writeMatrixFile(join(dir, 'g24.json'), ext, 'json');
+    const g = await run('--generator', join(dir, 'g24.json'), '--json', '--workers', '0');
+    expect(g.code).toBe(0);
+    // source: MacWilliams & Sloane (1977): extended Golay [24,12,8], A8 = 759
+    expect(JSON.parse(g.out).d).toMatchObject({ upper: 8, lower: 8, certified: true, count: 759, countExact: true });
+    const missing = await run('--generator', join(dir, 'none.mtx'));
+    expect(missing.code).toBe(2);
+    expect(missing.err).toMatch(/^overcheck: .*none\.mtx/);
   });
 
   it('bad input: one line on stderr, exit 2', async () => {
