@@ -4,7 +4,10 @@ import type { BitMatrix } from '../gf2/bitmatrix.js';
 import { matrixHash } from '../codes/hash.js';
 import { formatBudget, parseBudget } from '../condition/budget.js';
 import { verifyCandidates } from '../condition/candidates.js';
-import { conditionSide, type ConditionedSide, type ConditionRequest } from '../condition/condition.js';
+import { conditionSide, type ConditionedSide, type ConditionRequest, type TrialSelector } from '../condition/condition.js';
+import type { Budget } from '../condition/budget.js';
+import type { LatencyModel } from '../condition/latency.js';
+import type { Strategy } from '../condition/select.js';
 import { LATENCY_MODELS, LATENCY_UNITS } from '../condition/latency.js';
 import type { Provenance } from '../condition/provenance.js';
 import { STRATEGIES } from '../condition/select.js';
@@ -13,7 +16,7 @@ import { type MatrixFormat, writeMatrixFile } from '../formats/index.js';
 import { writeJsonFile } from '../formats/json-out.js';
 import { readCandidateWords } from '../formats/words-file.js';
 import { VERSION } from '../version.js';
-import { choiceOption, codeOptions, intOption, loadCodeInput, printJson, type CodeOptions } from './input.js';
+import { choiceOption, codeOptions, intOption, loadCodeInput, printJson, type CodeInput, type CodeOptions } from './input.js';
 import { FORMATS } from './make.js';
 
 export interface ConditionCliOptions extends CodeOptions {
@@ -90,43 +93,75 @@ export function registerCondition(program: Command): void {
     .option('--basis <b>', 'all (keep every original row) or minimal (a full-rank subset)', 'all')
     .action((o: ConditionCliOptions) => {
       const input = loadCodeInput(o);
-      const budget = parseBudget(o.budget);
-      const strategy = choiceOption('strategy', o.strategy, STRATEGIES, 'lightest');
-      const latencyModel = choiceOption('latency-model', o.latencyModel, LATENCY_MODELS, 'serial');
-      const iterations = intOption('iterations', o.iterations, 3, 1);
-      const format = choiceOption('format', o.format, FORMATS, 'mtx');
-      const basis = choiceOption('basis', o.basis, ['all', 'minimal'] as const, 'all');
-      const words = readCandidateWords(o.words!);
-      const matrices: { side: string; h: BitMatrix }[] =
-        input.kind === 'matrix' ? [{ side: 'h', h: input.h }] : [{ side: 'x', h: input.code.hx }, { side: 'z', h: input.code.hz }];
-      const wanted = o.side === undefined ? [...words.keys()] : o.side === 'both' ? ['x', 'z'] : [choiceOption('side', o.side, ['x', 'z', 'h'] as const, 'x')];
-      const todo = matrices.filter((m) => wanted.includes(m.side));
-      if (todo.length === 0) throw new InputError(`--words ${o.words} has words for side(s) ${[...words.keys()].join(', ')}, none of which this input has`);
-      if (strategy === 'trial') throw new InputError('--strategy trial: not available yet (needs the trial decoding engine)');
-      const results = todo.map(({ side, h }) => {
-        const sup = words.get(side);
-        if (!sup) throw new InputError(`--words ${o.words} has no words for side ${side}`);
-        const candidates = verifyCandidates(h, sup, `${o.words} (side ${side})`);
-        const req: ConditionRequest = { side, h, candidates, basis, budget, latencyModel, iterations, strategy, seed: o.seed ?? '1', symmetry: input.symmetry };
-        return { side, out: conditionSide(req), candidates: candidates.words.length, dropped: candidates.dropped };
-      });
-      const inputs: Record<string, string> = {};
-      for (const m of matrices) inputs[m.side === 'h' ? 'h' : `h${m.side}`] = matrixHash(m.h);
-      const base = {
-        tool: 'overcheck' as const, version: VERSION, command: process.argv.slice(2), seed: o.seed ?? '1', strategy, budget, latencyModel, iterations, basis, inputs,
+      const settings: ConditioningSettings = {
+        budget: parseBudget(o.budget),
+        strategy: choiceOption('strategy', o.strategy, STRATEGIES, 'lightest'),
+        latencyModel: choiceOption('latency-model', o.latencyModel, LATENCY_MODELS, 'serial'),
+        iterations: intOption('iterations', o.iterations, 3, 1),
+        format: choiceOption('format', o.format, FORMATS, 'mtx'),
+        basis: choiceOption('basis', o.basis, ['all', 'minimal'] as const, 'all'),
+        seed: o.seed ?? '1',
+        side: o.side,
+        out: o.out,
       };
-      const prov = o.out ? writeBundle(o.out, format, results, base) : null;
-      const summary = {
-        strategy, budget, latencyModel, iterations, seed: o.seed ?? '1',
-        sides: Object.fromEntries(results.map((r) => [r.side, { added: r.out.added.length, addedByWeight: r.out.addedByWeight, before: r.out.before, after: r.out.after, candidates: r.candidates, dropped: r.dropped }])),
-        ...(prov ? { provenance: `${o.out}.provenance.json` } : {}),
-      };
+      const { summary, results, prov } = runConditioning(input, readCandidateWords(o.words!), o.words!, settings);
       if (o.json) printJson(summary);
       else {
-        const lines = [`strategy ${strategy}, budget ${formatBudget(budget)}, latency model ${latencyModel} at ${iterations} iterations, seed ${o.seed ?? '1'}`];
-        for (const r of results) lines.push(...summaryLines(r.out, LATENCY_UNITS[latencyModel]));
-        if (prov) lines.push(`wrote ${Object.values(prov.sides).flatMap((s) => [s.files.matrix, s.files.map]).join(', ')}, ${basename(o.out!)}.provenance.json`);
+        const lines = [`strategy ${settings.strategy}, budget ${formatBudget(settings.budget)}, latency model ${settings.latencyModel} at ${settings.iterations} iterations, seed ${settings.seed}`];
+        for (const r of results) lines.push(...summaryLines(r.out, LATENCY_UNITS[settings.latencyModel]));
+        if (prov) lines.push(`wrote ${Object.values(prov.sides).flatMap((x) => [x.files.matrix, x.files.map]).join(', ')}, ${basename(o.out!)}.provenance.json`);
         process.stdout.write(lines.join('\n') + '\n');
       }
     });
+}
+
+export interface ConditioningSettings {
+  budget: Budget;
+  strategy: Strategy;
+  latencyModel: LatencyModel;
+  iterations: number;
+  format: MatrixFormat;
+  basis: 'all' | 'minimal';
+  seed: string;
+  /** x, z, both, h; default: the sides present in the words. */
+  side?: string;
+  /** Bundle prefix; no files are written without it. */
+  out?: string;
+  trial?: TrialSelector;
+}
+
+/** Condition every requested side from candidate words, write the bundle when asked; returns the summary. */
+export function runConditioning(input: CodeInput, words: Map<string, number[][]>, wordsLabel: string, st: ConditioningSettings) {
+  const matrices: { side: string; h: BitMatrix }[] =
+    input.kind === 'matrix' ? [{ side: 'h', h: input.h }] : [{ side: 'x', h: input.code.hx }, { side: 'z', h: input.code.hz }];
+  const wanted = st.side === undefined ? [...words.keys()] : st.side === 'both' ? ['x', 'z'] : [choiceOption('side', st.side, ['x', 'z', 'h'] as const, 'x')];
+  const todo = matrices.filter((m) => wanted.includes(m.side));
+  if (todo.length === 0) throw new InputError(`${wordsLabel} has words for side(s) ${[...words.keys()].join(', ')}, none of which this input has`);
+  if (st.strategy === 'trial' && !st.trial) throw new InputError('--strategy trial needs the trial settings (--score)');
+  const results = todo.map(({ side, h }) => {
+    const sup = words.get(side);
+    if (!sup) throw new InputError(`${wordsLabel} has no words for side ${side}`);
+    const candidates = verifyCandidates(h, sup, `${wordsLabel} (side ${side})`);
+    const req: ConditionRequest = {
+      side, h, candidates, basis: st.basis, budget: st.budget, latencyModel: st.latencyModel, iterations: st.iterations, strategy: st.strategy, seed: st.seed, symmetry: input.symmetry, trial: st.trial,
+    };
+    return { side, out: conditionSide(req), candidates: candidates.words.length, dropped: candidates.dropped };
+  });
+  const inputs: Record<string, string> = {};
+  for (const m of matrices) inputs[m.side === 'h' ? 'h' : `h${m.side}`] = matrixHash(m.h);
+  const base = {
+    tool: 'overcheck' as const, version: VERSION, command: process.argv.slice(2), seed: st.seed, strategy: st.strategy, budget: st.budget,
+    latencyModel: st.latencyModel, iterations: st.iterations, basis: st.basis, inputs,
+  };
+  const prov = st.out ? writeBundle(st.out, st.format, results, base) : null;
+  const bySide = <T>(f: (r: (typeof results)[number]) => T) => Object.fromEntries(results.map((r) => [r.side, f(r)]));
+  const summary = {
+    strategy: st.strategy, budget: st.budget, latencyModel: st.latencyModel, iterations: st.iterations, seed: st.seed,
+    added: bySide((r) => r.out.added.length),
+    before: bySide((r) => r.out.before),
+    after: bySide((r) => r.out.after),
+    sides: bySide((r) => ({ added: r.out.added.length, addedByWeight: r.out.addedByWeight, before: r.out.before, after: r.out.after, candidates: r.candidates, dropped: r.dropped })),
+    ...(prov ? { provenance: `${st.out}.provenance.json` } : {}),
+  };
+  return { summary, results, prov };
 }

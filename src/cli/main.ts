@@ -28,6 +28,11 @@ export function buildProgram(): Command {
 
 /** Run the CLI; returns the exit code. Never throws for user errors. */
 export async function main(argv: string[]): Promise<number> {
+  // a reader that closes the pipe early (`| head`) is not an error: stop quietly
+  process.stdout.on('error', (e: NodeJS.ErrnoException) => {
+    if (e.code === 'EPIPE') process.exit(0);
+    throw e;
+  });
   const program = buildProgram();
   try {
     await program.parseAsync(argv);

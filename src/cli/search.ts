@@ -11,7 +11,7 @@ import { ExitWith } from './main.js';
 import { choiceOption, codeOptions, floatOption, intOption, loadCodeInput, printJson, type CodeOptions } from './input.js';
 import { startRun, type RunControl } from './run-control.js';
 
-interface SearchCliOptions extends CodeOptions {
+export interface SearchCliOptions extends CodeOptions {
   side?: string;
   maxWeight?: string;
   method?: string;
@@ -115,7 +115,11 @@ export function registerSearch(program: Command): void {
     });
 }
 
-async function searchSides(sides: SearchSide[], o: SearchCliOptions): Promise<SearchResult[]> {
+/**
+ * Search each side, streaming to --out and resuming from --resume as the options say. `shared` is a run
+ * control owned by the caller (the run command); without it one is opened and closed here.
+ */
+export async function searchSides(sides: SearchSide[], o: SearchCliOptions, shared?: RunControl): Promise<SearchResult[]> {
   const method = choiceOption('method', o.method, ['auto', 'exhaustive', 'isd'] as const, 'auto');
   const seed = o.seed ?? '1';
   const iterations = o.iterations !== undefined ? intOption('iterations', o.iterations, 0, 1) : undefined;
@@ -125,9 +129,9 @@ async function searchSides(sides: SearchSide[], o: SearchCliOptions): Promise<Se
   if (shard && o.resume) throw new InputError('--shard and --resume cannot be combined: resume each shard from its own --out file without --shard');
   const resumed = o.resume ? readWordsFile(o.resume) : null;
   const outPath = o.out ?? o.resume;
-  const control: RunControl = await startRun({
+  const control: RunControl = shared ?? (await startRun({
     workers: o.workers, timeLimit: o.timeLimit, progress: o.progress, what: 'search', resumeHint: outPath,
-  });
+  }));
   const { runSearch } = await import('../search/run.js');
   const writer = outPath ? new WordsWriter(outPath, false) : null;
   const finalLines: unknown[] = [];
@@ -178,7 +182,7 @@ async function searchSides(sides: SearchSide[], o: SearchCliOptions): Promise<Se
     }
   } finally {
     writer?.close();
-    await control.close();
+    if (!shared) await control.close();
   }
   if (outPath) {
     // sides not run this time (interrupted before them) keep what the resumed file had

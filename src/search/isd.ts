@@ -163,13 +163,20 @@ export function isdChunk(task: IsdChunkTask): IsdChunkResult {
   };
   const { variant, p, window, segment } = task.settings;
   const winCols = new Int32Array(Math.max(0, window));
+  const sternBuf = variant === 'stern' ? new SternBuffers(n, k, p, window) : null;
   const proj = new Int32Array(k);
+  const first = new Uint32Array(2 * k);
   const half = new Int32Array(k);
   let it = 0;
   for (; it < task.iterations && !overflow; it++) {
     if (it % segment === 0) st.fresh();
     else st.swap();
     if (variant === 'lee-brickell') {
+      // words 0 and 1 of every row, contiguous: most pairs are rejected on them alone (inline popcount, no calls)
+      for (let a = 0; a < k; a++) {
+        first[2 * a] = m[a * s]!;
+        first[2 * a + 1] = s > 1 ? m[a * s + 1]! : 0;
+      }
       for (let a = 0; a < k; a++) {
         const ao = a * s;
         let wt = 0;
@@ -179,10 +186,21 @@ export function isdChunk(task: IsdChunkTask): IsdChunkResult {
           take();
         }
         if (p < 2) continue;
+        const a0 = first[2 * a]!;
+        const a1 = first[2 * a + 1]!;
         for (let b = a + 1; b < k; b++) {
+          let y = a0 ^ first[2 * b]!;
+          let z = a1 ^ first[2 * b + 1]!;
+          y = y - ((y >>> 1) & 0x55555555);
+          z = z - ((z >>> 1) & 0x55555555);
+          y = (y & 0x33333333) + ((y >>> 2) & 0x33333333);
+          z = (z & 0x33333333) + ((z >>> 2) & 0x33333333);
+          y = (y + (y >>> 4)) & 0x0f0f0f0f;
+          z = (z + (z >>> 4)) & 0x0f0f0f0f;
+          let w2 = (Math.imul(y, 0x01010101) >>> 24) + (Math.imul(z, 0x01010101) >>> 24);
+          if (w2 > W) continue;
           const bo = b * s;
-          let w2 = 0;
-          for (let x = 0; x < s && w2 <= W; x++) w2 += popcount32(m[ao + x]! ^ m[bo + x]!);
+          for (let x = 2; x < s && w2 <= W; x++) w2 += popcount32(m[ao + x]! ^ m[bo + x]!);
           if (w2 <= W) {
             for (let x = 0; x < s; x++) tmp[x] = m[ao + x]! ^ m[bo + x]!;
             take();
@@ -190,10 +208,49 @@ export function isdChunk(task: IsdChunkTask): IsdChunkResult {
         }
       }
     } else {
-      sternStep(st, W, p, window, winCols, proj, half, take);
+      sternStep(st, W, p, window, winCols, proj, half, take, sternBuf!);
     }
   }
   return { words: found.packed(), count: found.size, iterations: it, overflow };
+}
+
+/** Preallocated buffers of the Stern step (sized once per chunk). */
+class SternBuffers {
+  readonly chosen: Uint8Array;
+  readonly xa: Int32Array;
+  readonly xb: Int32Array;
+  readonly next: Int32Array;
+  readonly head: Int32Array;
+  /** head[key] is valid only when stamp[key] equals the current step (lazy reset of the bucket table). */
+  readonly stamp: Int32Array;
+  step = 0;
+
+  constructor(n: number, k: number, p: number, l: number) {
+    const k1 = k >>> 1;
+    const subsets = 1 + k1 + (p >= 2 ? (k1 * (k1 - 1)) / 2 : 0);
+    this.chosen = new Uint8Array(n);
+    this.xa = new Int32Array(subsets);
+    this.xb = new Int32Array(subsets);
+    this.next = new Int32Array(subsets);
+    this.head = new Int32Array(1 << l);
+    this.stamp = new Int32Array(1 << l).fill(-1);
+  }
+}
+
+/** XOR of up to four rows (−1 = absent) into tmp, with the weight; stops counting once above W. */
+function combineWeight(m: Uint32Array, s: number, a: number, b: number, c: number, d: number, tmp: Uint32Array, W: number): number {
+  let wt = 0;
+  for (let x = 0; x < s; x++) {
+    let v = 0;
+    if (a >= 0) v ^= m[a * s + x]!;
+    if (b >= 0) v ^= m[b * s + x]!;
+    if (c >= 0) v ^= m[c * s + x]!;
+    if (d >= 0) v ^= m[d * s + x]!;
+    tmp[x] = v;
+    wt += popcount32(v);
+    if (wt > W) return wt;
+  }
+  return wt;
 }
 
 /**
@@ -201,12 +258,13 @@ export function isdChunk(task: IsdChunkTask): IsdChunkResult {
  * columns outside I, sums of ≤ p rows per half bucketed by their window projection.
  */
 function sternStep(
-  st: IsdState, W: number, p: number, l: number, winCols: Int32Array, proj: Int32Array, half: Int32Array, take: () => void,
+  st: IsdState, W: number, p: number, l: number, winCols: Int32Array, proj: Int32Array, half: Int32Array, take: () => void, buf: SternBuffers,
 ): void {
   const { k, n, s, m, isInfo, rng, tmp } = st;
-  // window: l distinct random non-information columns
+  const { chosen, xa, xb, next, head, stamp } = buf;
+  const step = ++buf.step;
   let got = 0;
-  const chosen = new Uint8Array(n);
+  chosen.fill(0);
   while (got < l) {
     const c = rng.below(n);
     if (isInfo[c] || chosen[c]) continue;
@@ -229,57 +287,39 @@ function sternStep(
     half[j] = t;
   }
   const k1 = k >>> 1;
-  // subsets of X = half[0..k1) of size 0..p (p ≤ 2), encoded as (a, b) with −1 for absent
-  const xa: number[] = [-1];
-  const xb: number[] = [-1];
-  for (let i = 0; i < k1; i++) {
-    xa.push(half[i]!);
-    xb.push(-1);
-    if (p >= 2) for (let j = i + 1; j < k1; j++) { xa.push(half[i]!); xb.push(half[j]!); }
-  }
-  const buckets = 1 << l;
-  const head = new Int32Array(buckets).fill(-1);
-  const next = new Int32Array(xa.length);
-  for (let t = 0; t < xa.length; t++) {
-    const a = xa[t]!;
-    const b = xb[t]!;
+  // subsets of X = half[0..k1) of size 0..p (p ≤ 2) as (a, b), −1 for absent, chained by window key
+  let count = 0;
+  const push = (a: number, b: number) => {
     const key = (a >= 0 ? proj[a]! : 0) ^ (b >= 0 ? proj[b]! : 0);
-    next[t] = head[key]!;
-    head[key] = t;
+    xa[count] = a;
+    xb[count] = b;
+    if (stamp[key] !== step) {
+      stamp[key] = step;
+      head[key] = -1;
+    }
+    next[count] = head[key]!;
+    head[key] = count;
+    count++;
+  };
+  push(-1, -1);
+  for (let i = 0; i < k1; i++) {
+    push(half[i]!, -1);
+    if (p >= 2) for (let j = i + 1; j < k1; j++) push(half[i]!, half[j]!);
   }
-  const visitY = (c: number, d: number) => {
-    const key = (c >= 0 ? proj[c]! : 0) ^ (d >= 0 ? proj[d]! : 0);
-    for (let t = head[key]!; t >= 0; t = next[t]!) {
-      const a = xa[t]!;
-      const b = xb[t]!;
-      if (a < 0 && c < 0) continue; // the zero word
-      let wt = 0;
-      for (let x = 0; x < s && wt <= W; x++) {
-        let v = 0;
-        if (a >= 0) v ^= m[a * s + x]!;
-        if (b >= 0) v ^= m[b * s + x]!;
-        if (c >= 0) v ^= m[c * s + x]!;
-        if (d >= 0) v ^= m[d * s + x]!;
-        tmp[x] = v;
-        wt += popcount32(v);
-      }
-      if (wt <= W) {
-        for (let x = 0; x < s; x++) {
-          let v = 0;
-          if (a >= 0) v ^= m[a * s + x]!;
-          if (b >= 0) v ^= m[b * s + x]!;
-          if (c >= 0) v ^= m[c * s + x]!;
-          if (d >= 0) v ^= m[d * s + x]!;
-          tmp[x] = v;
-        }
-        take();
+  // subsets of Y = half[k1..k) of size 0..p, each checked against its bucket
+  for (let i = k1 - 1; i < k; i++) {
+    const c = i < k1 ? -1 : half[i]!;
+    const jEnd = c < 0 || p < 2 ? i + 1 : k;
+    for (let j = i; j < jEnd; j++) {
+      const d = j === i ? -1 : half[j]!;
+      const key = (c >= 0 ? proj[c]! : 0) ^ (d >= 0 ? proj[d]! : 0);
+      if (stamp[key] !== step) continue;
+      for (let t = head[key]!; t >= 0; t = next[t]!) {
+        const a = xa[t]!;
+        if (a < 0 && c < 0) continue; // the zero word
+        if (combineWeight(m, s, a, xb[t]!, c, d, tmp, W) <= W) take();
       }
     }
-  };
-  visitY(-1, -1);
-  for (let i = k1; i < k; i++) {
-    visitY(half[i]!, -1);
-    if (p >= 2) for (let j = i + 1; j < k; j++) visitY(half[i]!, half[j]!);
   }
 }
 

@@ -110,3 +110,17 @@ describe('conditioning', () => {
     expect(() => parseBudget('rows=1,speed=3')).toThrow(/unknown key "speed"/);
   });
 });
+
+describe('the pruning counter agrees with the cycle census', () => {
+  it('4- and 6-cycle totals equal cycleCensus on random matrices', async () => {
+    const { cycleCensus } = await import('../../src/graph/census.js');
+    const { fromRowVectors } = await import('../../src/gf2/index.js');
+    fc.assert(fc.property(sparseRows, ({ rows, c }) => {
+      const vs = rows.map((r) => packSupport(c, r));
+      const figs = matrixFigures(c, vs, 'serial', 1);
+      const census = cycleCensus(fromRowVectors(c, vs), 6);
+      expect(BigInt(figs.cycles['4'])).toBe(census.cycles.get(4) ?? 0n);
+      expect(BigInt(figs.cycles['6'])).toBe(census.cycles.get(6) ?? 0n);
+    }), { numRuns: 200 });
+  });
+});

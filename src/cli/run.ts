@@ -1,0 +1,210 @@
+import { createHash } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync } from 'node:fs';
+import { dirname, isAbsolute, join, resolve } from 'node:path';
+import type { Command } from 'commander';
+import { summarizeCode } from '../codes/css.js';
+import { type BitMatrix, vstack } from '../gf2/bitmatrix.js';
+import { readMatrixFile, type MatrixFormat } from '../formats/index.js';
+import { parseBudget } from '../condition/budget.js';
+import { InputError } from '../errors.js';
+import { readJsonFile, writeTextFileAtomic } from '../formats/json-file.js';
+import { writeJsonFile } from '../formats/json-out.js';
+import { readWordsFile } from '../formats/words-file.js';
+import { DEFAULT_CONFIG, parseRunConfig, type RunConfig } from '../pipeline/config.js';
+import { VERSION } from '../version.js';
+import { runConditioning } from './condition.js';
+import { loadCodeInput, printJson, requireCss } from './input.js';
+import { ExitWith } from './main.js';
+import { startRun, type RunControl } from './run-control.js';
+import { searchSides } from './search.js';
+
+/** The demo configuration the README's first command runs. */
+export const DEMO_CONFIG = 'matrices/lantern42.run.json';
+
+interface RunState {
+  configHash: string;
+  stages: Record<string, unknown>;
+}
+
+function locateDemo(): string {
+  const here = dirname(new URL(import.meta.url).pathname);
+  return join(here, '..', '..', DEMO_CONFIG);
+}
+
+/** A stage's result, computed once per configuration and kept in DIR/state.json so that a rerun resumes. */
+class Checkpoints {
+  private state: RunState;
+  constructor(private readonly path: string, configHash: string, fresh: boolean) {
+    let prev: RunState | null = null;
+    if (!fresh && existsSync(path)) {
+      try {
+        prev = JSON.parse(readFileSync(path, 'utf8')) as RunState;
+      } catch {
+        prev = null;
+      }
+    }
+    this.state = prev && prev.configHash === configHash ? prev : { configHash, stages: {} };
+  }
+
+  has(stage: string): boolean {
+    return stage in this.state.stages;
+  }
+
+  get<T>(stage: string): T {
+    return this.state.stages[stage] as T;
+  }
+
+  put(stage: string, value: unknown): void {
+    this.state.stages[stage] = value;
+    writeJsonFile(this.path, this.state);
+  }
+}
+
+export function registerRun(program: Command): void {
+  program
+    .command('run')
+    .description('the whole job: search, distance audit, conditioning, cycle census, trial decoding, export and report')
+    .argument('[config]', `a run configuration (JSON; default: the bundled demo ${DEMO_CONFIG})`)
+    .option('--out <dir>', 'directory for every result, the export bundle and report.html', 'overcheck-run')
+    .option('--workers <n>', 'worker threads (default: the config, else the number of cores)')
+    .option('--fresh', 'recompute every stage instead of reusing the ones saved in DIR/state.json')
+    .option('--progress', 'progress on stderr even when it is not a terminal')
+    .option('--json', 'print the run bundle as one JSON object')
+    .action(async (configPath: string | undefined, o: { out: string; workers?: string; fresh?: boolean; progress?: boolean; json?: boolean }) => {
+      const file = configPath ?? locateDemo();
+      const raw = readJsonFile(file);
+      const config = parseRunConfig(raw.value, file);
+      const base = dirname(resolve(file));
+      const rel = (p: string) => (isAbsolute(p) ? p : join(base, p));
+      const dir = o.out;
+      mkdirSync(dir, { recursive: true });
+      const configHash = createHash('sha256').update(JSON.stringify(config)).digest('hex');
+      const ck = new Checkpoints(join(dir, 'state.json'), configHash, o.fresh === true);
+      const say = (msg: string) => process.stderr.write(`${msg}\n`);
+      const input = requireCss(
+        loadCodeInput('family' in config.code ? { family: config.code.family } : { hx: rel(config.code.hx), hz: rel(config.code.hz) }),
+        'run',
+      );
+      const workers = o.workers ?? (config.workers === null ? undefined : String(config.workers));
+      const control: RunControl = await startRun({ workers, progress: o.progress, what: 'run', resumeHint: dir });
+      let interrupted = false;
+      try {
+        const sides = config.sides === 'both' ? ['x', 'z'] : [config.sides];
+        // 1. code summary
+        const info = summarizeCode(input.code);
+        ck.put('info', info);
+        say(`code ${input.label}: [[${info.n},${info.k}]], HX ${info.hx.rows}×${info.n} rank ${info.hx.rank}, HZ ${info.hz.rows}×${info.n} rank ${info.hz.rank}`);
+        // 2. search both sides (resumable through DIR/words.jsonl)
+        let search: Record<string, unknown>;
+        if (ck.has('search')) {
+          search = ck.get('search');
+          say('search: reusing the saved result');
+        } else {
+          const wordsFile = join(dir, 'words.jsonl');
+          const resume = existsSync(wordsFile) && !o.fresh ? safeResume(wordsFile) : undefined;
+          const results = await searchSides(
+            sides.map((s) => ({ side: s, h: s === 'x' ? input.code.hx : input.code.hz, symmetry: input.symmetry })),
+            {
+              maxWeight: config.search.maxWeight === null ? undefined : String(config.search.maxWeight),
+              method: config.search.method,
+              seed: String(config.seed),
+              iterations: config.search.iterations === null ? undefined : String(config.search.iterations),
+              targetMiss: String(config.search.targetMiss),
+              maxWords: '2000000',
+              out: resume ? undefined : wordsFile,
+              resume,
+            },
+            control,
+          );
+          search = Object.fromEntries(results.map((r) => [r.side, r]));
+          if (results.some((r) => r.stopReason === 'interrupted')) {
+            interrupted = true;
+            return;
+          }
+          ck.put('search', search);
+          for (const r of results) say(`search ${r.side}: ${r.wordCount} words of weight ≤ ${r.maxWeight} (${r.method}, ${r.complete ? 'complete' : `miss probability ≤ ${Math.max(...Object.values(r.missProbability)).toExponential(1)}`})`);
+        }
+        if (control.shouldStop()) {
+          interrupted = true;
+          return;
+        }
+        // 3. conditioning and export bundle
+        const words = new Map<string, number[][]>(Object.entries(search).map(([s, r]) => [s, (r as { words: number[][] }).words]));
+        const bundlePrefix = join(dir, 'conditioned');
+        const { summary: condition } = runConditioning(input, words, 'search result', {
+          budget: parseBudget(config.condition.budget),
+          strategy: config.condition.strategy === 'trial' ? 'fewest-cycles' : config.condition.strategy,
+          latencyModel: config.condition.latencyModel,
+          iterations: config.condition.iterations,
+          format: config.condition.format,
+          basis: config.condition.basis,
+          seed: String(config.seed),
+          side: config.sides,
+          out: bundlePrefix,
+        });
+        ck.put('condition', condition);
+        for (const s of sides) {
+          const c = condition.sides[s]!;
+          say(`condition ${s}: +${c.added} rows, ${c.before.rows}→${c.after.rows} rows, 4-cycles ${c.before.cycles['4']}→${c.after.cycles['4']}`);
+        }
+        // 4. cycle census of the original and the conditioned matrices (X, Z and joint graphs)
+        const { cycleCensus, censusJson, structureSummary, tannerGraph } = await import('../graph/index.js');
+        const conditioned = readConditioned(bundlePrefix, sides, config.condition.format, input.code.hx, input.code.hz);
+        const census = (hx: BitMatrix, hz: BitMatrix) => {
+          const one = (m: BitMatrix) => censusJson(cycleCensus(m, config.cycles.maxLength), structureSummary(tannerGraph(m)));
+          return { maxLength: config.cycles.maxLength, x: one(hx), z: one(hz), joint: { ...one(vstack(hx, hz)), checks: { x: hx.rows, z: hz.rows } } };
+        };
+        const cycles = { before: census(input.code.hx, input.code.hz), after: census(conditioned.hx, conditioned.hz) };
+        ck.put('cycles', cycles);
+        say(`cycles: joint graph 4-cycles ${cycles.before.joint.cycles['4']} → ${cycles.after.joint.cycles['4']}, girth ${cycles.before.joint.girth} → ${cycles.after.joint.girth}`);
+        // 5. the run bundle and the report
+        const provenance = JSON.parse(readFileSync(`${bundlePrefix}.provenance.json`, 'utf8'));
+        const bundle = {
+          kind: 'overcheck-run',
+          version: VERSION,
+          config: { file, sha256: raw.sha256, settings: config },
+          info,
+          search,
+          condition,
+          cycles,
+          provenance,
+          notes: [] as string[],
+        };
+        writeJsonFile(join(dir, 'run.json'), bundle);
+        const { collectReport, renderReport } = await import('../report/index.js');
+        const model = collectReport([{ file: join(dir, 'run.json'), value: bundle }], { version: VERSION, command: ['overcheck', ...process.argv.slice(2)].join(' ') });
+        writeTextFileAtomic(join(dir, 'report.html'), renderReport(model));
+        say(`wrote ${join(dir, 'report.html')}, ${join(dir, 'run.json')} and the bundle ${bundlePrefix}.*`);
+        if (o.json) printJson(bundle);
+      } finally {
+        control.endLine();
+        await control.close();
+        if (interrupted) {
+          say(`overcheck: interrupted; what was found is saved in ${dir}; run the same command again to resume`);
+        }
+      }
+      if (interrupted) throw new ExitWith(130);
+    });
+}
+
+/** The saved words file, when it holds a search that can be resumed; a damaged one is set aside. */
+function safeResume(path: string): string | undefined {
+  try {
+    readWordsFile(path);
+    return path;
+  } catch (e) {
+    if (e instanceof InputError) return undefined;
+    throw e;
+  }
+}
+
+export { DEFAULT_CONFIG };
+export type { RunConfig };
+
+/** The exported matrices of the bundle (sides not conditioned keep the original matrix). */
+function readConditioned(prefix: string, sides: string[], format: MatrixFormat, hx: BitMatrix, hz: BitMatrix): { hx: BitMatrix; hz: BitMatrix } {
+  return {
+    hx: sides.includes('x') ? readMatrixFile(`${prefix}.hx.${format}`) : hx,
+    hz: sides.includes('z') ? readMatrixFile(`${prefix}.hz.${format}`) : hz,
+  };
+}

@@ -1,0 +1,11 @@
+export { cycleCensus, checkMaxLength, MAX_CYCLE_LENGTH, DEFAULT_WORK_LIMIT, METHOD_TEXT } from './census.js';
+export type { CycleCensus, CensusOptions, CountMethod } from './census.js';
+export { CycleTracker, TABLE_COLS } from './incremental.js';
+export type { CycleDelta, RowInput } from './incremental.js';
+export { structureSummary } from './structure.js';
+export type { StructureSummary } from './structure.js';
+export { tannerGraph, sidedGraph, smallerSide } from './tanner.js';
+export type { TannerGraph, SidedGraph } from './tanner.js';
+export { censusJson, censusText } from './format.js';
+export type { CensusJson, TextOptions } from './format.js';
+export { countToJson } from './widesum.js';
