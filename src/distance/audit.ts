@@ -240,7 +240,7 @@ function finish(problem: DistanceProblem, collection: WordCollection, f: Finish)
     stoppedBy: f.stoppedBy,
     isd: {
       iterations,
-      stages: f.isd.stages.filter((st) => st.iterations > 0).map((st) => ({ ...st.settings, iterations: st.iterations })),
+      stages: f.isd.stages.filter((st) => st.iterations > 0).map((st) => ({ ...st.settings, iterations: st.iterations, chunks: [...st.chunks.values()].reduce((a, b) => a + b, 0) })),
     },
     enumeration: f.enumeration,
     exhaustive: f.exhaustive,

@@ -50,11 +50,11 @@ export interface SideReport {
   readonly stoppedBy: SideStop;
   /**
    * Information-set search: total information sets visited, and the stretches it ran in (each planned by the
-   * search stage's planner: variant, p, window, swap segment, information sets visited).
+   * search stage's planner: variant, p, window, swap segment, information sets visited, chunks run).
    */
   readonly isd: {
     readonly iterations: number;
-    readonly stages: readonly { variant: string; p: number; window: number; segment: number; iterations: number }[];
+    readonly stages: readonly { variant: string; p: number; window: number; segment: number; iterations: number; chunks: number }[];
   };
   readonly enumeration: EnumerationSummary | null;
   readonly exhaustive: { readonly visited: number; readonly total: number } | null;

@@ -16,10 +16,15 @@ import { InputError } from '../errors.js';
 import type { AugmentedBasis } from './augmented.js';
 import type { WordCollection } from './words.js';
 
-/** One planned stretch of the search: the settings it used and the information sets it visited. */
+/**
+ * One planned stretch of the search: the settings it used, the information sets it visited, and how many
+ * chunks of each length it ran (each chunk starts a fresh information set, so its miss probability is the
+ * analysis for its own length; a chunk can be shorter than planned at the end of a budget or when it fills).
+ */
 export interface IsdStage {
   readonly settings: IsdSettings;
   readonly iterations: number;
+  readonly chunks: Map<number, number>;
 }
 
 /** Stage lengths in chunks: short first (the upper bound drops fast), then 16 chunks per re-plan. */
@@ -65,7 +70,9 @@ function distinctColumns(g: Uint32Array, rows: number, n: number): number {
 /** Probability that one given word of weight w was missed by all the stages (they are independent). */
 export function stagesMiss(code: IsdCode, stages: readonly IsdStage[], w: number): number {
   let m = 1;
-  for (const s of stages) if (s.iterations > 0) m *= settingsMiss(code.effectiveLength, code.dim, w, s.settings, s.iterations);
+  for (const s of stages) {
+    for (const [length, count] of s.chunks) m *= Math.pow(settingsMiss(code.effectiveLength, code.dim, w, s.settings, length), count);
+  }
   return m;
 }
 
@@ -143,7 +150,7 @@ export async function runInformationSetPhase(
     if (plan.method !== 'isd') throw new Error('distance: the planner was asked for information-set search');
     const settings = plan.settings;
     const per = plan.chunkIterations;
-    const stage: IsdStage = { settings, iterations: 0 };
+    const stage: IsdStage = { settings, iterations: 0, chunks: new Map() };
     stages.push(stage);
     const chunks = STAGE_CHUNKS[Math.min(stageIndex, STAGE_CHUNKS.length - 1)]!;
     stageIndex++;
@@ -176,6 +183,7 @@ export async function runInformationSetPhase(
         const S = (code.n + 31) >>> 5;
         for (let i = 0; i < r.count; i++) collection.add(r.words.subarray(i * S, (i + 1) * S));
         (stage as { iterations: number }).iterations += r.iterations;
+        if (r.iterations > 0) stage.chunks.set(r.iterations, (stage.chunks.get(r.iterations) ?? 0) + 1);
         done += r.iterations;
         state.iterations += r.iterations;
         const miss = missNow();
