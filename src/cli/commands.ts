@@ -1,5 +1,6 @@
 import type { Command } from 'commander';
 import { registerCycles } from './cycles.js';
+import { registerDistance } from './distance.js';
 import { registerInfo } from './info.js';
 import { registerMake } from './make.js';
 import { registerReport } from './report.js';
@@ -20,4 +21,5 @@ export function registerCommands(program: Command): void {
   registerReport(program);
   registerRun(program);
   registerCycles(program);
+  registerDistance(program);
 }

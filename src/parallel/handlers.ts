@@ -1,5 +1,6 @@
 import { grayChunk } from '../search/gray.js';
 import { isdChunk } from '../search/isd.js';
+import { combinationChunkTask } from '../distance/certify.js';
 
 /**
  * Task kinds a worker can run, each a pure function of a structured-clonable payload.
@@ -11,4 +12,5 @@ export const handlers: Record<string, TaskHandler> = {
   echo: ((p: unknown) => p) as TaskHandler,
   'search.gray': grayChunk as TaskHandler,
   'search.isd': isdChunk as TaskHandler,
+  'distance.combinations': combinationChunkTask as TaskHandler,
 };

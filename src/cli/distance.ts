@@ -1,0 +1,114 @@
+import type { Command } from 'commander';
+import { InputError } from '../errors.js';
+import { readMatrixFile } from '../formats/index.js';
+import { DEFAULT_SEED } from '../parallel/seeds.js';
+import { choiceOption, codeOptions, floatOption, intOption, loadCodeInput, printJson, type CodeOptions } from './input.js';
+import { EXIT_NO, ExitWith } from './main.js';
+import { startRun } from './run-control.js';
+import type { AuditProgress } from '../distance/audit.js';
+
+interface DistanceOptions extends CodeOptions {
+  generator?: string;
+  side?: string;
+  method?: string;
+  seed?: string;
+  workers?: string;
+  timeLimit?: string;
+  iterations?: string;
+  targetMiss?: string;
+  enumerationLimit?: string;
+  maxWords?: string;
+  json?: boolean;
+  progress?: boolean;
+}
+
+export function registerDistance(program: Command): void {
+  codeOptions(program.command('distance').description('audit the minimum weight of logical operators (dX, dZ) or of a classical code: bounds, witness, count'))
+    .option('--generator <file>', 'a classical generator matrix (instead of --h)')
+    .option('--side <side>', 'x, z or both (CSS codes)')
+    .option('--method <method>', 'auto, exhaustive, isd or certify', 'auto')
+    .option('--seed <seed>', `random seed (default ${DEFAULT_SEED})`)
+    .option('--workers <n>', 'worker threads (default: number of cores; 0 runs on the main thread)')
+    .option('--time-limit <sec>', 'stop after this many seconds and report the bounds reached')
+    .option('--iterations <n>', 'information-set iterations (alone: exactly this many)')
+    .option('--target-miss <p>', 'stop the information-set search once the miss probability is below p (default 1e-6)')
+    .option('--enumeration-limit <n>', 'largest certifying enumeration auto plans for, in combinations (default 1e9)')
+    .option('--max-words <n>', 'most minimum-weight words kept per side (default 200000); beyond it the count is a lower bound')
+    .option('--progress', 'progress on stderr even when it is not a terminal')
+    .option('--json', 'print one JSON object')
+    .action(async (o: DistanceOptions) => {
+      const { auditDistance, DISTANCE_METHODS, DEFAULT_ENUMERATION_LIMIT, DEFAULT_MAX_WORDS } = await import('../distance/audit.js');
+      const { classicalCheckProblem, classicalGeneratorProblem } = await import('../distance/problem.js');
+      const { formatDistanceText } = await import('../distance/result.js');
+
+      const method = choiceOption('method', o.method, DISTANCE_METHODS, 'auto');
+      const seed = o.seed ?? String(DEFAULT_SEED);
+      const timeLimit = floatOption('time-limit', o.timeLimit, Infinity, 0);
+      const iterations = o.iterations === undefined ? undefined : intOption('iterations', o.iterations, 0, 0);
+      const targetMiss = o.targetMiss === undefined ? undefined : floatOption('target-miss', o.targetMiss, 0, 0, 1);
+      const enumerationLimit = floatOption('enumeration-limit', o.enumerationLimit, DEFAULT_ENUMERATION_LIMIT, 0);
+      const maxWords = intOption('max-words', o.maxWords, DEFAULT_MAX_WORDS, 1);
+
+      let input: Parameters<typeof auditDistance>[1];
+      if (o.generator !== undefined) {
+        if (o.hx !== undefined || o.hz !== undefined || o.family !== undefined || o.h !== undefined) {
+          throw new InputError('--generator takes the place of --h, --family and --hx/--hz: give only one input');
+        }
+        if (o.side !== undefined) throw new InputError('--side applies to CSS codes only');
+        input = { kind: 'classical', problem: classicalGeneratorProblem(readMatrixFile(o.generator)), label: o.generator };
+      } else {
+        const loaded = loadCodeInput(o);
+        if (loaded.kind === 'css') {
+          input = { kind: 'css', code: loaded.code, label: loaded.label, side: choiceOption('side', o.side, ['x', 'z', 'both'] as const, 'both') };
+        } else {
+          if (o.side !== undefined) throw new InputError('--side applies to CSS codes only');
+          input = { kind: 'classical', problem: classicalCheckProblem(loaded.h), label: loaded.label };
+        }
+      }
+
+      const started = Date.now();
+      const control = await startRun({ workers: o.workers, timeLimit: o.timeLimit, progress: o.progress, what: 'distance' });
+      const show = o.progress === true || process.stderr.isTTY === true;
+      const tty = process.stderr.isTTY === true;
+      let lastShown = 0;
+      let shown = false;
+      const progress = (p: AuditProgress) => {
+        const now = Date.now();
+        if (now - lastShown < 500) return;
+        lastShown = now;
+        const what =
+          p.phase === 'isd'
+            ? `information-set search: ${p.iterations} information sets, miss ≤ ${p.missProbability.toExponential(1)}`
+            : p.phase === 'enumeration'
+              ? `enumeration: level ${p.level}, ${p.combinations.toExponential(2)} combinations`
+              : `exhaustive: ${p.combinations.toExponential(2)} of 2^${p.level} words`;
+        const name = p.key === 'dx' ? 'dX' : p.key === 'dz' ? 'dZ' : 'd';
+        const line = `distance: ${p.lower} ≤ ${name} ≤ ${p.upper}; ${what}; ${((now - started) / 1000).toFixed(1)} s`;
+        process.stderr.write(tty ? `\r${line}\x1b[K` : `${line}\n`);
+        shown = true;
+      };
+      let interrupted = false;
+      let report;
+      try {
+        report = await auditDistance(control.pool, input, { method, seed, iterations, targetMiss, enumerationLimit, maxWords }, {
+          shouldStop: control.shouldStop,
+          stopReason: () => {
+            if ((Date.now() - started) / 1000 >= timeLimit) return 'time-limit';
+            interrupted = true;
+            return 'interrupted';
+          },
+          ...(show ? { progress } : {}),
+        });
+      } finally {
+        if (shown && tty) process.stderr.write('\n');
+        await control.close();
+      }
+      if (o.json) printJson(report);
+      else process.stdout.write(formatDistanceText(report) + `elapsed ${((Date.now() - started) / 1000).toFixed(2)} s\n`);
+      if (interrupted) throw new ExitWith(130);
+      if (method === 'certify') {
+        const certified = report.kind === 'classical' ? report.d.certified : [report.dx, report.dz].every((s) => s === undefined || s.certified);
+        if (!certified) throw new ExitWith(EXIT_NO);
+      }
+    });
+}
