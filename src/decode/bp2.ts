@@ -18,6 +18,8 @@ export class BinaryBp {
   readonly ratioDomain: boolean;
   /** Clamp on |LLR| of check messages for this graph. */
   readonly maxLlr: number;
+  /** All numbers in one array (see check-rules.ts): messages, then beliefs, then accumulated messages. */
+  readonly state: Float64Array;
   readonly c2v: Float64Array;
   readonly belief: Float64Array;
   readonly hard: Uint8Array;
@@ -34,10 +36,11 @@ export class BinaryBp {
     this.options = options;
     this.ratioDomain = options.rule === 'sum-product';
     this.maxLlr = messageLimit(g.maxVarDegree);
-    this.c2v = new Float64Array(g.edges);
-    this.belief = new Float64Array(g.vars);
+    this.state = new Float64Array(g.edges + 2 * g.vars);
+    this.c2v = this.state.subarray(0, g.edges);
+    this.belief = this.state.subarray(g.edges, g.edges + g.vars);
+    this.acc = this.state.subarray(g.edges + g.vars);
     this.hard = new Uint8Array(g.vars);
-    this.acc = new Float64Array(g.vars);
     this.prior = new Float64Array(g.vars);
     this.llr = new Float64Array(g.vars);
     this.scratch = checkScratch(g.maxCheckDegree);
@@ -62,34 +65,36 @@ export class BinaryBp {
 
   /** One iteration in the configured schedule, then the hard decision. */
   iterate(): void {
-    const { g, belief, c2v, acc, prior, syndrome, scratch, maxLlr, hard } = this;
+    const { g, state, prior, syndrome, scratch, maxLlr, hard } = this;
     const scale = this.options.scale;
     const vars = g.vars;
+    const B = g.edges;
+    const A = B + vars;
     if (this.options.schedule === 'flooding') {
-      // acc holds the neutral value on entry (start, or the loop below); it is reset while it is read
+      // the accumulators hold the neutral value on entry (start, or the loop below), reset as they are read
       if (this.ratioDomain) {
-        sumProductPass(g, belief, c2v, acc, syndrome, scale, Math.exp(maxLlr), scratch);
+        sumProductPass(g, state, B, A, syndrome, scale, Math.exp(maxLlr), scratch);
         for (let v = 0; v < vars; v++) {
-          const b = prior[v]! * acc[v]!;
-          belief[v] = b;
+          const b = prior[v]! * state[A + v]!;
+          state[B + v] = b;
           hard[v] = b < 1 ? 1 : 0;
-          acc[v] = 1;
+          state[A + v] = 1;
         }
       } else {
-        minSumPass(g, belief, c2v, acc, syndrome, scale, maxLlr, scratch);
+        minSumPass(g, state, B, A, syndrome, scale, maxLlr, scratch);
         for (let v = 0; v < vars; v++) {
-          const b = prior[v]! + acc[v]!;
-          belief[v] = b;
+          const b = prior[v]! + state[A + v]!;
+          state[B + v] = b;
           hard[v] = b < 0 ? 1 : 0;
-          acc[v] = 0;
+          state[A + v] = 0;
         }
       }
     } else {
       if (this.ratioDomain) {
         const maxRatio = Math.exp(maxLlr);
-        for (let c = 0; c < g.checks; c++) sumProductSerial(g, c, belief, c2v, acc, syndrome[c]!, scale, maxRatio, scratch);
+        for (let c = 0; c < g.checks; c++) sumProductSerial(g, c, state, B, A, syndrome[c]!, scale, maxRatio, scratch);
       } else {
-        for (let c = 0; c < g.checks; c++) minSumSerial(g, c, belief, c2v, acc, syndrome[c]!, scale, maxLlr, scratch);
+        for (let c = 0; c < g.checks; c++) minSumSerial(g, c, state, B, A, syndrome[c]!, scale, maxLlr, scratch);
       }
       this.decide();
     }

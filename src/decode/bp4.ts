@@ -31,6 +31,8 @@ export class QuaternaryBp {
   readonly options: BpOptions;
   readonly ratioDomain: boolean;
   readonly maxLlr: number;
+  /** All numbers in one array (see check-rules.ts): messages, then beliefs, then accumulated messages. */
+  readonly state: Float64Array;
   readonly c2v: Float64Array;
   /** belief[j]: the Z part of qubit j; belief[n+j]: its X part (ratios or LLRs). */
   readonly belief: Float64Array;
@@ -57,9 +59,11 @@ export class QuaternaryBp {
     this.options = options;
     this.ratioDomain = options.rule === 'sum-product';
     this.maxLlr = messageLimit(this.g.maxVarDegree);
-    this.c2v = new Float64Array(this.g.edges);
-    this.belief = new Float64Array(2 * n);
-    this.acc = new Float64Array(2 * n);
+    const E = this.g.edges;
+    this.state = new Float64Array(E + 4 * n);
+    this.c2v = this.state.subarray(0, E);
+    this.belief = this.state.subarray(E, E + 2 * n);
+    this.acc = this.state.subarray(E + 2 * n);
     this.hard = new Uint8Array(2 * n);
     this.llr = new Float64Array(2 * n);
     this.prob = new Float64Array(4 * n);
@@ -94,24 +98,26 @@ export class QuaternaryBp {
   }
 
   iterate(): void {
-    const { g, belief, c2v, acc, syndrome, scratch, n, maxLlr } = this;
+    const { g, state, acc, syndrome, scratch, n, maxLlr } = this;
     const scale = this.options.scale;
+    const B = g.edges;
+    const A = B + 2 * n;
     if (this.options.schedule === 'flooding') {
       if (this.ratioDomain) {
         acc.fill(1);
-        sumProductPass(g, belief, c2v, acc, syndrome, scale, Math.exp(maxLlr), scratch);
+        sumProductPass(g, state, B, A, syndrome, scale, Math.exp(maxLlr), scratch);
         this.refreshAllRatio();
       } else {
         acc.fill(0);
-        minSumPass(g, belief, c2v, acc, syndrome, scale, maxLlr, scratch);
+        minSumPass(g, state, B, A, syndrome, scale, maxLlr, scratch);
         for (let j = 0; j < n; j++) this.refresh(j);
       }
     } else {
       const { checkStart, edgeVar } = g;
       const maxRatio = Math.exp(maxLlr);
       for (let c = 0; c < g.checks; c++) {
-        if (this.ratioDomain) sumProductSerial(g, c, belief, c2v, acc, syndrome[c]!, scale, maxRatio, scratch);
-        else minSumSerial(g, c, belief, c2v, acc, syndrome[c]!, scale, maxLlr, scratch);
+        if (this.ratioDomain) sumProductSerial(g, c, state, B, A, syndrome[c]!, scale, maxRatio, scratch);
+        else minSumSerial(g, c, state, B, A, syndrome[c]!, scale, maxLlr, scratch);
         // the other part of each touched qubit depends on the sum that just moved
         const end = checkStart[c + 1]!;
         if (c < this.xChecks) for (let e = checkStart[c]!; e < end; e++) this.refreshX(edgeVar[e]!);
@@ -184,16 +190,18 @@ export class QuaternaryBp {
 
   /** refresh() of every qubit in the ratio domain, as one tight loop (the flooding hot path). */
   private refreshAllRatio(): void {
-    const { n, acc, belief, hard, prob } = this;
+    const { n, state, hard, prob } = this;
+    const B = this.g.edges;
+    const A = B + 2 * n;
     for (let j = 0; j < n; j++) {
-      const a = acc[j]!;
-      const b = acc[n + j]!;
+      const a = state[A + j]!;
+      const b = state[A + n + j]!;
       const pI = prob[4 * j]!;
       const pX = prob[4 * j + 1]!;
       const pY = prob[4 * j + 2]!;
       const pZ = prob[4 * j + 3]!;
-      belief[j] = a * (b >= 1 ? (pI + pX / b) / (pZ + pY / b) : (pI * b + pX) / (pZ * b + pY));
-      belief[n + j] = b * (a >= 1 ? (pI + pZ / a) / (pX + pY / a) : (pI * a + pZ) / (pX * a + pY));
+      state[B + j] = a * (b >= 1 ? (pI + pX / b) / (pZ + pY / b) : (pI * b + pX) / (pZ * b + pY));
+      state[B + n + j] = b * (a >= 1 ? (pI + pZ / a) / (pX + pY / a) : (pI * a + pZ) / (pX * a + pY));
       let x = 0;
       let z = 0;
       let best = pI * a * b;

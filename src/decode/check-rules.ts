@@ -15,6 +15,11 @@ import type { TannerEdges } from './tanner-edges.js';
  *   tanh = (P − C)/(P + C), and the reply is R = (1 + y)/(1 − y) with y the leave-one-out product: the whole
  *   rule costs two divisions per edge and no exp, log or tanh. Variables combine messages by products.
  * Messages are clamped to |LLR| ≤ maxLlr (see messageLimit), which also keeps every product of ratios finite.
+ *
+ * Layout: a decoder keeps all its numbers in one Float64Array `state`: the check-to-variable message of edge
+ * e at state[e], the posterior (belief) of variable v at state[B + v], the accumulated product or sum of its
+ * messages at state[A + v]. One array instead of three makes V8's inner loops markedly faster (it re-checks
+ * each typed array at every turn of a loop); the gather loop of sum-product also takes two edges per turn.
  */
 export type CheckRule = 'sum-product' | 'min-sum';
 
@@ -33,25 +38,24 @@ export function messageLimit(maxVarDegree: number): number {
 export interface CheckScratch {
   readonly x: Float64Array;
   readonly t: Float64Array;
-  readonly pre: Float64Array;
   readonly old: Float64Array;
 }
 
 export function checkScratch(maxDegree: number): CheckScratch {
   const d = Math.max(1, maxDegree);
-  return { x: new Float64Array(d), t: new Float64Array(d), pre: new Float64Array(d), old: new Float64Array(d) };
+  return { x: new Float64Array(d), t: new Float64Array(d), old: new Float64Array(d) };
 }
 
 /**
- * One flooding pass of sum-product over all checks, in the ratio domain: post[v] is variable v's posterior
- * ratio, c2v[e] the last ratio check→variable on edge e (overwritten with the new one), and each new ratio is
- * multiplied into prod[v] (which the caller sets to 1 first). Allocation-free.
+ * One flooding pass of sum-product over all checks, in the ratio domain. Reads beliefs at state[B + v] and the
+ * last messages at state[e] (overwritten with the new ones); multiplies each new ratio into state[A + v]
+ * (which the caller sets to 1 first). Allocation-free.
  */
 export function sumProductPass(
   g: TannerEdges,
-  post: Float64Array,
-  c2v: Float64Array,
-  prod: Float64Array,
+  state: Float64Array,
+  B: number,
+  A: number,
   syndrome: Uint8Array,
   scale: number,
   maxRatio: number,
@@ -63,40 +67,52 @@ export function sumProductPass(
   let e0 = 0;
   for (let c = 0; c < checks; c++) {
     const e1 = checkStart[c + 1]!;
-    // t_k = (P − C)/(P + C) is parked in c2v[e]. With T = (−1)^s ∏ t_k the leave-one-out product is
+    // t_k = (P − C)/(P + C) is parked in state[e]. With T = (−1)^s ∏ t_k the leave-one-out product is
     // y = T/t_k, so the reply (1 + y)/(1 − y) is (|t_k| + y|t_k|)/(|t_k| − y|t_k|): one division per edge.
     // T = 0 (an exactly neutral message, or underflow) needs the leave-one-out products themselves.
     let total = syndrome[c] !== 0 ? -1 : 1;
-    for (let e = e0; e < e1; e++) {
-      const pv = post[edgeVar[e]!]!;
-      const m = c2v[e]!;
-      const tk = (pv - m) / (pv + m);
-      c2v[e] = tk;
-      total *= tk;
+    let e = e0;
+    for (; e + 1 < e1; e += 2) {
+      const p0 = state[B + edgeVar[e]!]!;
+      const m0 = state[e]!;
+      const p1 = state[B + edgeVar[e + 1]!]!;
+      const m1 = state[e + 1]!;
+      const t0 = (p0 - m0) / (p0 + m0);
+      const t1 = (p1 - m1) / (p1 + m1);
+      state[e] = t0;
+      state[e + 1] = t1;
+      total *= t0 * t1;
+    }
+    if (e < e1) {
+      const p0 = state[B + edgeVar[e]!]!;
+      const m0 = state[e]!;
+      const t0 = (p0 - m0) / (p0 + m0);
+      state[e] = t0;
+      total *= t0;
     }
     if (total === 0 || scaled) {
-      leaveOneOut(c2v, e0, e1 - e0, syndrome[c]!, s.t);
-      for (let e = e0; e < e1; e++) {
-        let r = c2v[e]!;
+      leaveOneOut(state, e0, e1 - e0, syndrome[c]!, s.t);
+      for (e = e0; e < e1; e++) {
+        let r = state[e]!;
         if (scaled) r = Math.pow(r, scale);
         r = r > maxRatio ? maxRatio : r < minRatio ? minRatio : r;
-        c2v[e] = r;
-        const v = edgeVar[e]!;
-        prod[v] = prod[v]! * r;
+        state[e] = r;
+        const v = A + edgeVar[e]!;
+        state[v] = state[v]! * r;
       }
     } else {
-      for (let e = e0; e < e1; e++) {
-        // with a = |t_k| and u = T·sign(t_k) = y·|t_k|: r = (a + u)/(a − u), where a − u ≥ 0 up to
-        // rounding; a − u ≤ 0 means y = 1 to working precision, a saturated reply
-        const tk = c2v[e]!;
+      for (e = e0; e < e1; e++) {
+        // a = |t_k|, u = T·sign(t_k) = y·|t_k|: r = (a + u)/(a − u), where a − u ≥ 0 up to rounding;
+        // a − u ≤ 0 means y = 1 to working precision, a saturated reply
+        const tk = state[e]!;
         const a = tk < 0 ? -tk : tk;
         const u = tk < 0 ? -total : total;
         const den = a - u;
         let r = den > 0 ? (a + u) / den : maxRatio;
         r = r > maxRatio ? maxRatio : r < minRatio ? minRatio : r;
-        c2v[e] = r;
-        const v = edgeVar[e]!;
-        prod[v] = prod[v]! * r;
+        state[e] = r;
+        const v = A + edgeVar[e]!;
+        state[v] = state[v]! * r;
       }
     }
     e0 = e1;
@@ -125,13 +141,14 @@ function leaveOneOut(a: Float64Array, at: number, d: number, flip: number, tmp: 
 
 /**
  * One flooding pass of scaled min-sum over all checks, on LLRs: the message from v into edge e is
- * post[v] − c2v[e]; new messages overwrite c2v and are added into sums[v] (which the caller zeroes first).
+ * state[B + v] − state[e]; new messages overwrite state[e] and are added into state[A + v] (which the caller
+ * zeroes first).
  */
 export function minSumPass(
   g: TannerEdges,
-  post: Float64Array,
-  c2v: Float64Array,
-  sums: Float64Array,
+  state: Float64Array,
+  B: number,
+  A: number,
   syndrome: Uint8Array,
   scale: number,
   maxLlr: number,
@@ -139,16 +156,16 @@ export function minSumPass(
 ): void {
   const { checks, checkStart, edgeVar } = g;
   const x = s.x;
+  let e0 = 0;
   for (let c = 0; c < checks; c++) {
-    const e0 = checkStart[c]!;
-    const d = checkStart[c + 1]! - e0;
+    const e1 = checkStart[c + 1]!;
     let min1 = Infinity;
     let min2 = Infinity;
     let arg = -1;
     let sign = syndrome[c]!;
-    for (let k = 0; k < d; k++) {
-      const v = post[edgeVar[e0 + k]!]! - c2v[e0 + k]!;
-      x[k] = v;
+    for (let e = e0; e < e1; e++) {
+      const v = state[B + edgeVar[e]!]! - state[e]!;
+      x[e - e0] = v;
       let a = v;
       if (v < 0) {
         sign ^= 1;
@@ -157,34 +174,35 @@ export function minSumPass(
       if (a < min1) {
         min2 = min1;
         min1 = a;
-        arg = k;
+        arg = e;
       } else if (a < min2) min2 = a;
     }
     let m1 = scale * min1;
     if (m1 > maxLlr) m1 = maxLlr;
     let m2 = scale * min2;
     if (m2 > maxLlr) m2 = maxLlr;
-    for (let k = 0; k < d; k++) {
-      const mag = k === arg ? m2 : m1;
-      const m = (sign ^ (x[k]! < 0 ? 1 : 0)) !== 0 ? -mag : mag;
-      c2v[e0 + k] = m;
-      const v = edgeVar[e0 + k]!;
-      sums[v] = sums[v]! + m;
+    for (let e = e0; e < e1; e++) {
+      const mag = e === arg ? m2 : m1;
+      const m = (sign ^ (x[e - e0]! < 0 ? 1 : 0)) !== 0 ? -mag : mag;
+      state[e] = m;
+      const v = A + edgeVar[e]!;
+      state[v] = state[v]! + m;
     }
+    e0 = e1;
   }
 }
 
 /**
  * Serial (layered) sum-product update of check c alone, ratio domain: incoming ratios from the current
- * posteriors, new ratios into c2v, each neighbour's posterior set to incoming × new (so later checks see
- * it) and prod[v] multiplied by new/old.
+ * beliefs, new ratios into state[e], each neighbour's belief set to incoming × new (so later checks see it)
+ * and its accumulated product multiplied by new/old.
  */
 export function sumProductSerial(
   g: TannerEdges,
   c: number,
-  post: Float64Array,
-  c2v: Float64Array,
-  prod: Float64Array,
+  state: Float64Array,
+  B: number,
+  A: number,
   syndromeBit: number,
   scale: number,
   maxRatio: number,
@@ -197,18 +215,18 @@ export function sumProductSerial(
   const d = checkStart[c + 1]! - e0;
   let total = syndromeBit !== 0 ? -1 : 1;
   for (let k = 0; k < d; k++) {
-    const pv = post[edgeVar[e0 + k]!]!;
-    const m = c2v[e0 + k]!;
+    const pv = state[B + edgeVar[e0 + k]!]!;
+    const m = state[e0 + k]!;
     old[k] = m;
     x[k] = pv / m;
     const tk = (pv - m) / (pv + m);
-    c2v[e0 + k] = tk;
+    state[e0 + k] = tk;
     total *= tk;
   }
   const exact = total === 0 || scale !== 1;
-  if (exact) leaveOneOut(c2v, e0, d, syndromeBit, s.t);
+  if (exact) leaveOneOut(state, e0, d, syndromeBit, s.t);
   for (let k = 0; k < d; k++) {
-    const tk = c2v[e0 + k]!;
+    const tk = state[e0 + k]!;
     let r = tk;
     if (!exact) {
       const a = tk < 0 ? -tk : tk;
@@ -218,23 +236,23 @@ export function sumProductSerial(
     }
     if (scale !== 1) r = Math.pow(r, scale);
     r = r > maxRatio ? maxRatio : r < minRatio ? minRatio : r;
-    c2v[e0 + k] = r;
+    state[e0 + k] = r;
     const v = edgeVar[e0 + k]!;
-    post[v] = x[k]! * r;
-    prod[v] = (prod[v]! * r) / old[k]!;
+    state[B + v] = x[k]! * r;
+    state[A + v] = (state[A + v]! * r) / old[k]!;
   }
 }
 
 /**
- * Serial (layered) min-sum update of check c alone, on LLRs: posteriors set to incoming + new, sums[v]
- * moved by new − old.
+ * Serial (layered) min-sum update of check c alone, on LLRs: beliefs set to incoming + new, sums moved by
+ * new − old.
  */
 export function minSumSerial(
   g: TannerEdges,
   c: number,
-  post: Float64Array,
-  c2v: Float64Array,
-  sums: Float64Array,
+  state: Float64Array,
+  B: number,
+  A: number,
   syndromeBit: number,
   scale: number,
   maxLlr: number,
@@ -249,9 +267,9 @@ export function minSumSerial(
   let arg = -1;
   let sign = syndromeBit;
   for (let k = 0; k < d; k++) {
-    const m = c2v[e0 + k]!;
+    const m = state[e0 + k]!;
     old[k] = m;
-    const v = post[edgeVar[e0 + k]!]! - m;
+    const v = state[B + edgeVar[e0 + k]!]! - m;
     x[k] = v;
     let a = v;
     if (v < 0) {
@@ -271,9 +289,9 @@ export function minSumSerial(
   for (let k = 0; k < d; k++) {
     const mag = k === arg ? m2 : m1;
     const m = (sign ^ (x[k]! < 0 ? 1 : 0)) !== 0 ? -mag : mag;
-    c2v[e0 + k] = m;
+    state[e0 + k] = m;
     const v = edgeVar[e0 + k]!;
-    post[v] = x[k]! + m;
-    sums[v] = sums[v]! + m - old[k]!;
+    state[B + v] = x[k]! + m;
+    state[A + v] = state[A + v]! + m - old[k]!;
   }
 }

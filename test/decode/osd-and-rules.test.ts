@@ -65,10 +65,11 @@ describe('check rules against their formulas, including saturated messages', () 
       const postLlr = Array.from({ length: d }, () => (rng.next() - 0.5) * 2 * big);
       const c2vLlr = Array.from({ length: d }, () => (rng.next() - 0.5) * 2 * Math.min(big, 40));
       const syndrome = Uint8Array.of(rng.below(2));
-      const post = Float64Array.from(postLlr, Math.exp);
-      const c2v = Float64Array.from(c2vLlr, Math.exp);
-      const prod = new Float64Array(d).fill(1);
-      sumProductPass(g, post, c2v, prod, syndrome, 1, Math.exp(maxLlr), checkScratch(d));
+      // state layout: messages (d), beliefs (d), products (d)
+      const state = Float64Array.from([...c2vLlr, ...postLlr].map(Math.exp).concat(new Array<number>(d).fill(1)));
+      sumProductPass(g, state, d, 2 * d, syndrome, 1, Math.exp(maxLlr), checkScratch(d));
+      const c2v = state.subarray(0, d);
+      const prod = state.subarray(2 * d);
       for (let k = 0; k < d; k++) {
         let y = syndrome[0] ? -1 : 1;
         for (let j = 0; j < d; j++) if (j !== k) y *= Math.tanh((postLlr[j]! - c2vLlr[j]!) / 2);
@@ -89,11 +90,10 @@ describe('check rules against their formulas, including saturated messages', () 
     for (let t = 0; t < 200; t++) {
       const rng = streamRng('ms-rule', t);
       const x = Array.from({ length: d }, () => (rng.next() - 0.5) * 20);
-      const post = Float64Array.from(x);
-      const c2v = new Float64Array(d);
-      const sums = new Float64Array(d);
+      const state = Float64Array.from([...new Array<number>(d).fill(0), ...x, ...new Array<number>(d).fill(0)]);
       const syndrome = Uint8Array.of(rng.below(2));
-      minSumPass(g, post, c2v, sums, syndrome, 0.8, maxLlr, checkScratch(d));
+      minSumPass(g, state, d, 2 * d, syndrome, 0.8, maxLlr, checkScratch(d));
+      const c2v = state.subarray(0, d);
       for (let k = 0; k < d; k++) {
         const others = x.filter((_, j) => j !== k);
         const sign = others.reduce((s, v) => s * Math.sign(v), syndrome[0] ? -1 : 1);
