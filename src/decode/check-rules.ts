@@ -152,10 +152,9 @@ export function minSumPass(
   syndrome: Uint8Array,
   scale: number,
   maxLlr: number,
-  s: CheckScratch,
+  _s: CheckScratch,
 ): void {
   const { checks, checkStart, edgeVar } = g;
-  const x = s.x;
   let e0 = 0;
   for (let c = 0; c < checks; c++) {
     const e1 = checkStart[c + 1]!;
@@ -163,9 +162,10 @@ export function minSumPass(
     let min2 = Infinity;
     let arg = -1;
     let sign = syndrome[c]!;
+    // the incoming message is parked in state[e] until the reply replaces it
     for (let e = e0; e < e1; e++) {
       const v = state[B + edgeVar[e]!]! - state[e]!;
-      x[e - e0] = v;
+      state[e] = v;
       let a = v;
       if (v < 0) {
         sign ^= 1;
@@ -183,7 +183,7 @@ export function minSumPass(
     if (m2 > maxLlr) m2 = maxLlr;
     for (let e = e0; e < e1; e++) {
       const mag = e === arg ? m2 : m1;
-      const m = (sign ^ (x[e - e0]! < 0 ? 1 : 0)) !== 0 ? -mag : mag;
+      const m = (sign ^ (state[e]! < 0 ? 1 : 0)) !== 0 ? -mag : mag;
       state[e] = m;
       const v = A + edgeVar[e]!;
       state[v] = state[v]! + m;
