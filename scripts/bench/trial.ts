@@ -7,7 +7,7 @@
 // Run: npx tsx scripts/bench/trial.ts   (SHOTS=N kernel shots, default 1500; REPEAT=N best-of, default 3;
 //      KERNEL_ONLY=1 skips the whole-trial tables)
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -108,6 +108,7 @@ function bestOfAlternating<T extends { seconds: number }>(fs: readonly (() => T)
 }
 
 const workDir = mkdtempSync(join(tmpdir(), 'overcheck-bench-'));
+process.on('exit', () => rmSync(workDir, { recursive: true, force: true }));
 const kernelExe = join(workDir, 'bp-kernel');
 const kernelSrc = fileURLToPath(new URL('./c/bp-kernel.c', import.meta.url));
 let haveC = true;
