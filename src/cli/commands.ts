@@ -9,6 +9,7 @@ import { registerCondition } from './condition.js';
 import { registerTrim } from './trim.js';
 import { registerMerge } from './merge.js';
 import { registerRun } from './run.js';
+import { registerTrial } from './trial.js';
 
 /** Every command, one file each. Add a line here when a command is added. */
 export function registerCommands(program: Command): void {
@@ -22,4 +23,5 @@ export function registerCommands(program: Command): void {
   registerRun(program);
   registerCycles(program);
   registerDistance(program);
+  registerTrial(program);
 }
