@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync } from 'node:fs';
 import { dirname, isAbsolute, join, resolve } from 'node:path';
 import type { Command } from 'commander';
-import { summarizeCode } from '../codes/css.js';
+import { summarizeCode, type CssCode } from '../codes/css.js';
 import { type BitMatrix, vstack } from '../gf2/bitmatrix.js';
 import { readMatrixFile, type MatrixFormat } from '../formats/index.js';
 import { parseBudget } from '../condition/budget.js';
@@ -129,7 +129,32 @@ export function registerRun(program: Command): void {
           interrupted = true;
           return;
         }
-        // 3. conditioning and export bundle
+        // 3. distance audit (the bounds it proves within its time limit)
+        let distance: unknown = null;
+        if (config.distance.enabled) {
+          if (ck.has('distance')) {
+            distance = ck.get('distance');
+            say('distance: reusing the saved result');
+          } else {
+            const { auditDistance } = await import('../distance/audit.js');
+            const dc = stageControl(control, config.distance.timeLimit);
+            const report = await auditDistance(
+              control.pool,
+              { kind: 'css', code: input.code, label: input.label, side: 'both' },
+              { method: config.distance.method, seed: String(config.seed), targetMiss: config.distance.targetMiss },
+              { shouldStop: dc.shouldStop, stopReason: () => (dc.stopCause() === 'interrupted' ? 'interrupted' : 'time-limit') },
+            );
+            if (control.stopCause() === 'interrupted') {
+              interrupted = true;
+              return;
+            }
+            distance = report;
+            ck.put('distance', report);
+            const r = report as { dx?: { upper: number; lower: number; certified: boolean }; dz?: { upper: number; lower: number; certified: boolean } };
+            say(`distance: ${r.dx?.lower} ≤ dX ≤ ${r.dx?.upper}${r.dx?.certified ? ' (certified)' : ''}, ${r.dz?.lower} ≤ dZ ≤ ${r.dz?.upper}${r.dz?.certified ? ' (certified)' : ''}`);
+          }
+        }
+        // 4. conditioning and export bundle
         const words = new Map<string, number[][]>(Object.entries(search).map(([s, r]) => [s, (r as { words: number[][] }).words]));
         const bundlePrefix = join(dir, 'conditioned');
         const { summary: condition } = runConditioning(input, words, 'search result', {
@@ -148,7 +173,7 @@ export function registerRun(program: Command): void {
           const c = condition.sides[s]!;
           say(`condition ${s}: +${c.added} rows, ${c.before.rows}→${c.after.rows} rows, 4-cycles ${c.before.cycles['4']}→${c.after.cycles['4']}`);
         }
-        // 4. cycle census of the original and the conditioned matrices (X, Z and joint graphs)
+        // 5. cycle census of the original and the conditioned matrices (X, Z and joint graphs)
         const { cycleCensus, censusJson, structureSummary, tannerGraph } = await import('../graph/index.js');
         const conditioned = readConditioned(bundlePrefix, sides, config.condition.format, input.code.hx, input.code.hz);
         const census = (hx: BitMatrix, hz: BitMatrix) => {
@@ -158,7 +183,26 @@ export function registerRun(program: Command): void {
         const cycles = { before: census(input.code.hx, input.code.hz), after: census(conditioned.hx, conditioned.hz) };
         ck.put('cycles', cycles);
         say(`cycles: joint graph 4-cycles ${cycles.before.joint.cycles['4']} → ${cycles.after.joint.cycles['4']}, girth ${cycles.before.joint.girth} → ${cycles.after.joint.girth}`);
-        // 5. the run bundle and the report
+        // 6. trial decoding: the original matrices at their iteration count, and original and conditioned
+        //    side by side at the conditioned count, all on the same error samples (same seed and batches)
+        let trial: unknown = null;
+        if (config.trial.enabled) {
+          if (ck.has('trial')) {
+            trial = ck.get('trial');
+            say('trial: reusing the saved result');
+          } else {
+            trial = await trialStage(config, input.code, conditioned, control);
+            if (control.stopCause() === 'interrupted') {
+              interrupted = true;
+              return;
+            }
+            ck.put('trial', trial);
+            for (const pt of (trial as { points: { label: string; p: number; rate: number; failures: number; shots: number }[] }).points) {
+              say(`trial ${pt.label} p=${pt.p}: ${pt.failures}/${pt.shots} failures (rate ${pt.rate.toExponential(2)})`);
+            }
+          }
+        }
+        // 7. the run bundle and the report
         const provenance = JSON.parse(readFileSync(`${bundlePrefix}.provenance.json`, 'utf8'));
         const bundle = {
           kind: 'overcheck-run',
@@ -166,8 +210,10 @@ export function registerRun(program: Command): void {
           config: { file, sha256: raw.sha256, settings: config },
           info,
           search,
+          distance,
           condition,
           cycles,
+          trial,
           provenance,
           notes: [] as string[],
         };
@@ -225,4 +271,38 @@ export function stageControl(control: RunControl, seconds: number | null): RunCo
     close: () => control.close(),
     estimate: (d, p) => control.estimate(d, p),
   };
+}
+
+/** Both trial plans of the run, merged into one result with labels that name the iteration counts. */
+async function trialStage(config: RunConfig, code: CssCode, conditioned: { hx: BitMatrix; hz: BitMatrix }, control: RunControl) {
+  const { runTrial } = await import('../decode/runner.js');
+  const { trialCode, decoderMatrix } = await import('../decode/trial-engine.js');
+  const { parseOsd } = await import('./trial.js');
+  const { DEFAULT_MIN_SUM_SCALE } = await import('../decode/bp-options.js');
+  const tc = trialCode(code);
+  const t = config.trial;
+  const decoder = (iterations: number) => ({
+    decoder: t.decoder, osd: parseOsd(t.osd), rule: t.rule, schedule: t.schedule, iterations, earlyStop: true,
+    scale: t.scale ?? (t.rule === 'min-sum' ? DEFAULT_MIN_SUM_SCALE : 1),
+  });
+  const plan = (labelSuffix: string, iterations: number, withConditioned: boolean) => ({
+    code: tc,
+    matrices: [
+      decoderMatrix(tc, `original ${labelSuffix}`),
+      ...(withConditioned ? [decoderMatrix(tc, `conditioned ${labelSuffix}`, conditioned.hx, conditioned.hz)] : []),
+    ],
+    decoder: decoder(iterations),
+    noise: t.noise,
+    ps: t.p,
+    samples: { kind: 'channel' as const },
+    shots: t.shots,
+    failures: t.failures,
+    timeLimit: t.timeLimit,
+    batch: 256,
+    seed: String(config.seed),
+  });
+  const hooks = { now: () => performance.now() };
+  const a = await runTrial(plan(`(${t.iterationsOriginal} it)`, t.iterationsOriginal, false), control.pool, hooks);
+  const b = await runTrial(plan(`(${t.iterationsConditioned} it)`, t.iterationsConditioned, true), control.pool, hooks);
+  return { ...b, points: [...a.points, ...b.points], comparisons: [...a.comparisons, ...b.comparisons], iterations: { original: t.iterationsOriginal, conditioned: t.iterationsConditioned } };
 }
