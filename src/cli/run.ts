@@ -159,7 +159,7 @@ export function registerRun(program: Command): void {
         const bundlePrefix = join(dir, 'conditioned');
         const { summary: condition } = runConditioning(input, words, 'search result', {
           budget: parseBudget(config.condition.budget),
-          strategy: config.condition.strategy === 'trial' ? 'fewest-cycles' : config.condition.strategy,
+          strategy: config.condition.strategy,
           latencyModel: config.condition.latencyModel,
           iterations: config.condition.iterations,
           format: config.condition.format,
@@ -167,6 +167,7 @@ export function registerRun(program: Command): void {
           seed: String(config.seed),
           side: config.sides,
           out: bundlePrefix,
+          score: config.condition.strategy === 'trial' ? await runScoring(config, input.code) : undefined,
         });
         ck.put('condition', condition);
         for (const s of sides) {
@@ -305,4 +306,19 @@ async function trialStage(config: RunConfig, code: CssCode, conditioned: { hx: B
   const a = await runTrial(plan(`(${t.iterationsOriginal} it)`, t.iterationsOriginal, false), control.pool, hooks);
   const b = await runTrial(plan(`(${t.iterationsConditioned} it)`, t.iterationsConditioned, true), control.pool, hooks);
   return { ...b, points: [...a.points, ...b.points], comparisons: [...a.comparisons, ...b.comparisons], iterations: { original: t.iterationsOriginal, conditioned: t.iterationsConditioned } };
+}
+
+/** Scoring settings of the trial strategy in a run: the trial section's decoder, noise and points. */
+async function runScoring(config: RunConfig, code: CssCode) {
+  const { trialCode } = await import('../decode/trial-engine.js');
+  const { parseOsd } = await import('./trial.js');
+  const t = config.trial;
+  return {
+    code: trialCode(code),
+    decoder: { decoder: t.decoder, osd: parseOsd(t.osd), rule: t.rule, schedule: t.schedule, iterations: t.iterationsConditioned, earlyStop: true, scale: t.scale ?? (t.rule === 'min-sum' ? 0.75 : 1) },
+    noise: t.noise,
+    ps: t.p,
+    shots: Math.max(200, Math.floor(t.shots / 2)),
+    seed: `${config.seed}:select`,
+  };
 }
