@@ -229,9 +229,10 @@ export function registerRun(program: Command): void {
         await control.close();
         if (interrupted) {
           say(`overcheck: interrupted; what was found is saved in ${dir}; run the same command again to resume`);
+          // the stages return early on an interrupt; throwing here sets the exit code
+          throw new ExitWith(130);
         }
       }
-      if (interrupted) throw new ExitWith(130);
     });
 }
 
