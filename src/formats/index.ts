@@ -1,5 +1,5 @@
-import { readFileSync, renameSync, unlinkSync, writeFileSync } from 'node:fs';
-import { basename, dirname, join } from 'node:path';
+import { readFileSync } from 'node:fs';
+import { fileProblem, writeTextFileAtomic } from './atomic.js';
 import { InputError } from '../errors.js';
 import type { BitMatrix } from '../gf2/bitmatrix.js';
 import { parseAlist, serializeAlist } from './alist.js';
@@ -49,17 +49,6 @@ export function serializeMatrix(m: BitMatrix, format: MatrixFormat): string {
   }
 }
 
-function fileProblem(path: string, e: unknown, doing: string): InputError {
-  const code = (e as NodeJS.ErrnoException | undefined)?.code;
-  const why =
-    code === 'ENOENT' ? (doing === 'read' ? 'no such file' : 'directory does not exist')
-    : code === 'EISDIR' ? 'is a directory'
-    : code === 'EACCES' || code === 'EPERM' ? 'permission denied'
-    : code === 'ERR_STRING_TOO_LONG' ? 'file too large to read as text (over about 512 MiB)'
-    : `cannot ${doing} (${code ?? (e as Error)?.message ?? String(e)})`;
-  return new InputError(`${path}: ${why}`);
-}
-
 /** Read and parse a matrix file; format by extension, else by content. One-line InputError on any problem. */
 export function readMatrixFile(path: string): BitMatrix {
   let text: string;
@@ -71,24 +60,9 @@ export function readMatrixFile(path: string): BitMatrix {
   return parseMatrix(text, path);
 }
 
-let tempCounter = 0;
-
 /**
- * Write a matrix file atomically: the text goes to a temporary file beside `path`, which is then renamed
- * over it, so readers never see a half-written file. The text is built before anything is touched.
+ * Write a matrix file atomically (temporary file, then rename); the text is built before anything is touched.
  */
 export function writeMatrixFile(path: string, m: BitMatrix, format: MatrixFormat): void {
-  const text = serializeMatrix(m, format);
-  const temp = join(dirname(path), `.${basename(path)}.${process.pid}.${tempCounter++}.tmp`);
-  try {
-    writeFileSync(temp, text, { flag: 'wx' });
-    renameSync(temp, path);
-  } catch (e) {
-    try {
-      unlinkSync(temp);
-    } catch {
-      // the temporary file was never created, or is already gone
-    }
-    throw fileProblem(path, e, 'write');
-  }
+  writeTextFileAtomic(path, serializeMatrix(m, format));
 }

@@ -1,8 +1,6 @@
-import { renameSync, writeFileSync } from 'node:fs';
+import { writeTextFileAtomic } from './atomic.js';
 
-/** Write a JSON document atomically (temporary file, then rename). */
+/** Write a JSON document atomically (temporary file, then rename), indented for people to read. */
 export function writeJsonFile(path: string, value: unknown): void {
-  const tmp = `${path}.tmp-${process.pid}`;
-  writeFileSync(tmp, `${JSON.stringify(value, null, 2)}\n`);
-  renameSync(tmp, path);
+  writeTextFileAtomic(path, `${JSON.stringify(value, null, 2)}\n`);
 }

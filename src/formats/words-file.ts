@@ -1,4 +1,5 @@
-import { closeSync, existsSync, fsyncSync, openSync, readFileSync, renameSync, writeFileSync, writeSync } from 'node:fs';
+import { closeSync, existsSync, fsyncSync, openSync, readFileSync, writeSync } from 'node:fs';
+import { writeTextFileAtomic } from './atomic.js';
 import { FormatError, InputError } from '../errors.js';
 
 /**
@@ -57,9 +58,7 @@ export class WordsWriter {
 
 /** Replace the file atomically with the given lines. */
 export function finalizeWordsFile(path: string, lines: unknown[]): void {
-  const tmp = `${path}.tmp-${process.pid}`;
-  writeFileSync(tmp, lines.map((l) => JSON.stringify(l)).join('\n') + '\n');
-  renameSync(tmp, path);
+  writeTextFileAtomic(path, lines.map((l) => JSON.stringify(l)).join('\n') + '\n');
 }
 
 /**
