@@ -58,7 +58,7 @@ for (const [name, { spec, W }] of Object.entries(CODES)) {
   for (const workers of [1, 2]) {
     const pool = await openPool(workers);
     const t0 = performance.now();
-    const r = await runSearch({ side: 'x', h }, { maxWeight: W, method: 'isd', seed: 1, maxWords: 1e7, iterations: quick ? 400 : 2000 }, { pool });
+    const r = await runSearch({ side: 'x', h }, { maxWeight: W, method: 'isd', seed: 1, maxWords: 1e7, iterations: quick ? 4000 : 20000 }, { pool });
     const secs = (performance.now() - t0) / 1000;
     await pool.close();
     console.log(`  planned (${r.plan.method === 'isd' ? r.plan.reason.split(':')[0] : ''}), ${workers} worker(s): ${(r.iterations / secs).toFixed(0)} information sets/s, ${(r.wordCount / secs).toFixed(0)} words/s, ${r.wordCount} words`);

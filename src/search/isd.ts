@@ -259,6 +259,7 @@ function combineWeight(m: Uint32Array, s: number, a: number, b: number, c: numbe
  */
 function sternStep(
   st: IsdState, W: number, p: number, l: number, winCols: Int32Array, proj: Int32Array, half: Int32Array, take: () => void, buf: SternBuffers,
+  onCollision?: () => void,
 ): void {
   const { k, n, s, m, isInfo, rng, tmp } = st;
   const { chosen, xa, xb, next, head, stamp } = buf;
@@ -317,6 +318,7 @@ function sternStep(
       for (let t = head[key]!; t >= 0; t = next[t]!) {
         const a = xa[t]!;
         if (a < 0 && c < 0) continue; // the zero word
+        if (onCollision) onCollision();
         if (combineWeight(m, s, a, xb[t]!, c, d, tmp, W) <= W) take();
       }
     }
@@ -345,4 +347,22 @@ export function systematicDensity(rows: number, cols: number, generator: Uint32A
   const mean = weights.reduce((a, b) => a + b, 0) / (rows * (cols - rows));
   const sparse = weights.filter((w) => w / (cols - rows) < mean / 10).length;
   return { mean, sparseRows: sparse / rows };
+}
+
+/**
+ * Collisions (pairs of half-sums agreeing on the window, the zero word excluded) of one Stern step with
+ * parameters p and window l on the probe information set (stream 0 of seed "probe"): the planner's measured
+ * stand-in for the random-code model, which badly underestimates sparse systematic forms. Deterministic.
+ */
+export function sternProbeCollisions(rows: number, cols: number, generator: Uint32Array, p: number, l: number): number {
+  if (rows < 2 || cols - rows < l) return Infinity;
+  const task: IsdChunkTask = {
+    rows, cols, generator, maxWeight: -1, settings: { variant: 'stern', p, window: l, segment: 1 }, seed: 'probe', stream: 0, iterations: 0, maxWords: 0,
+  };
+  const st = new IsdState(task, streamRng('probe', 0));
+  st.fresh();
+  let collisions = 0;
+  // maxWeight −1: no candidate passes the weight test, each collision costs one early-exit check
+  sternStep(st, -1, p, l, new Int32Array(l), new Int32Array(rows), new Int32Array(rows), () => {}, new SternBuffers(cols, rows, p, l), () => collisions++);
+  return collisions;
 }

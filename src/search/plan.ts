@@ -51,7 +51,7 @@ export function iterationsFor(n: number, k: number, w: number, s: IsdSettings, t
 }
 
 /** Word operations per information set under the settings (elimination, swaps, enumeration). */
-export function iterationCost(n: number, k: number, maxWeight: number, s: IsdSettings, density = 0.5): number {
+export function iterationCost(n: number, k: number, maxWeight: number, s: IsdSettings, density = 0.5, measuredCollisions?: (p: number, window: number) => number): number {
   const stride = Math.ceil(n / 32);
   // popcount stops once the weight exceeds W: about (W + 1) / (32·ρ₂) words, ρ₂ the density of a sum of two rows
   const rho2 = Math.max(1e-6, 2 * density * (1 - density));
@@ -66,7 +66,7 @@ export function iterationCost(n: number, k: number, maxWeight: number, s: IsdSet
   // two sums of about p rows agree on one window bit with probability 1 − 2b(1 − b), b = P(bit = 1)
   const b = (1 - Math.pow(1 - 2 * density, Math.max(1, s.p))) / 2;
   const agree = 1 - 2 * b * (1 - b);
-  const collisions = Math.exp(logSubsets(k1, s.p) + logSubsets(k - k1, s.p)) * Math.pow(agree, s.window);
+  const collisions = measuredCollisions ? measuredCollisions(s.p, s.window) : Math.exp(logSubsets(k1, s.p) + logSubsets(k - k1, s.p)) * Math.pow(agree, s.window);
   return elim + k * s.window / 4 + subsets * 2 + 2 ** s.window / 8 + collisions * early * 2;
 }
 
@@ -87,6 +87,8 @@ export interface PlanRequest {
   density?: number;
   /** Fraction of systematic rows far sparser than the mean: Stern is not considered when above 5%. */
   sparseRows?: number;
+  /** Window collisions of one Stern step measured on a probe information set (more exact than the model). */
+  sternCollisions?: (p: number, window: number) => number;
 }
 
 /**
@@ -123,7 +125,7 @@ export function planSearch(req: PlanRequest): SearchPlan {
   for (const s of candidates) {
     let iters = 0;
     for (let w = 1; w <= W; w++) iters = Math.max(iters, iterationsFor(n, k, w, s, req.targetMiss));
-    const total = iters * iterationCost(n, k, W, s, req.density);
+    const total = iters * iterationCost(n, k, W, s, req.density, req.sternCollisions);
     if (!Number.isFinite(total)) continue;
     if (!best || total < best.total) best = { s, total, iters };
   }
@@ -133,7 +135,7 @@ export function planSearch(req: PlanRequest): SearchPlan {
         `but only n − k = ${n - k} columns lie outside it; use --method exhaustive or a lower --max-weight`,
     );
   }
-  const cost = iterationCost(n, k, W, best.s, req.density);
+  const cost = iterationCost(n, k, W, best.s, req.density, req.sternCollisions);
   // chunks of about CHUNK_WORK word operations, but at least 16 of them for the planned run (parallelism)
   const byWork = Math.max(1, Math.round(CHUNK_WORK / cost / best.s.segment));
   const byTarget = Number.isFinite(best.iters) ? Math.max(1, Math.ceil(best.iters / 16 / best.s.segment)) : byWork;
