@@ -139,7 +139,8 @@ export function planSearch(req: PlanRequest): SearchPlan {
   // chunks of about CHUNK_WORK word operations, but at least 16 of them for the planned run (parallelism)
   const byWork = Math.max(1, Math.round(CHUNK_WORK / cost / best.s.segment));
   const byTarget = Number.isFinite(best.iters) ? Math.max(1, Math.ceil(best.iters / 16 / best.s.segment)) : byWork;
-  const per = Math.min(byWork, byTarget) * best.s.segment;
+  // ... and never below an eighth of the work size, so the main thread's merge keeps up with the workers
+  const per = Math.max(Math.min(byWork, byTarget), Math.ceil(byWork / 8)) * best.s.segment;
   const name = best.s.variant === 'stern' ? `Stern p=${best.s.p} window=${best.s.window}` : `Lee–Brickell p=${best.s.p}`;
   return {
     method: 'isd',

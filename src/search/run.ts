@@ -100,6 +100,7 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
   const elements = target.symmetry ? groupElements(target.symmetry, n) : null;
   const image = new Uint32Array(s);
   let truncated = false;
+  const byWeight: number[] = []; // words stored per weight, kept as they are added
 
   /** Insert a word and (with symmetry) its orbit; returns the words that were new. */
   const insert = (v: Uint32Array, flag: number, fresh: Uint32Array[]): void => {
@@ -112,12 +113,16 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
     orbitOf.set(w, (orbitOf.get(w) ?? 0) + 1);
     if (!elements) {
       store.add(v, 0, flag);
+      byWeight[w] = (byWeight[w] ?? 0) + 1;
       fresh.push(v.slice());
       return;
     }
     for (const e of elements) {
       permuteWord(e, v, image, s);
-      if (store.add(image, 0, flag) >= 0) fresh.push(image.slice());
+      if (store.add(image, 0, flag) >= 0) {
+        byWeight[w] = (byWeight[w] ?? 0) + 1;
+        fresh.push(image.slice());
+      }
     }
   };
 
@@ -150,8 +155,7 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
   let nextStream = firstStream;
   const counts = (): Record<string, number> => {
     const c: Record<string, number> = {};
-    for (let w = 1; w <= W; w++) c[String(w)] = 0;
-    for (let i = 0; i < store.size; i++) c[String(store.weight(i))]! += 1;
+    for (let w = 1; w <= W; w++) c[String(w)] = byWeight[w] ?? 0;
     return c;
   };
   let complete = false;
