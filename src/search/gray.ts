@@ -66,7 +66,8 @@ export function grayChunk(t: GrayChunkTask): GrayChunkResult {
   let wt = 0;
   for (let x = 0; x < s; x++) wt += popcount32(v[x]!);
   if (wt > 0 && wt <= W) consider();
-  for (let i = 1; i < total && !overflow; i++) {
+  let i = 1;
+  for (; i < total && !overflow; i++) {
     // index of the lowest set bit of i: the coefficient that flips
     const bit = 31 - Math.clz32(i & -i);
     const o = bit * s;
@@ -78,5 +79,5 @@ export function grayChunk(t: GrayChunkTask): GrayChunkResult {
     }
     if (wt <= W && wt > 0) consider();
   }
-  return { words: found.packed(), count: found.size, visited: total, overflow };
+  return { words: found.packed(), count: found.size, visited: overflow ? i : total, overflow };
 }
