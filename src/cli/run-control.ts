@@ -28,7 +28,7 @@ export async function startRun(o: { workers?: string; timeLimit?: string; progre
   const onSignal = (sig: string) => {
     if (interrupted) process.exit(130);
     interrupted = true;
-    process.stderr.write(`\novercheck: ${sig}: finishing the work in flight and saving${o.resumeHint ? ` to ${o.resumeHint}` : ''} (again to abort)\n`);
+    process.stderr.write(`\novercheck: ${sig}: finishing the work in flight${o.resumeHint ? ` and saving to ${o.resumeHint}` : ''} (again to abort)\n`);
   };
   const onInt = () => onSignal('SIGINT');
   const onTerm = () => onSignal('SIGTERM');
