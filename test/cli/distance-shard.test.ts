@@ -103,6 +103,11 @@ describe('distance --shard and merge', () => {
     const seed = await runAsync(['distance', '--family', BB90, '--method', 'isd', '--iterations', '640', '--seed', '4', '--workers', '1', '--json', '--shard', '1/4'], dir);
     writeFileSync(join(dir, 'seed.json'), seed.out);
     expect(merge(['b0.json', 'seed.json'], dir).stderr).toMatch(/seed\.json is from seed 4, not 3/);
+    // a shard whose plan differs (here edited by hand) is refused even when every option agrees
+    const edited = JSON.parse(readFileSync(join(dir, 'b3.json'), 'utf8'));
+    edited.dz.shard.plan.isd.chunkIterations += 1;
+    writeFileSync(join(dir, 'edited.json'), JSON.stringify(edited));
+    expect(merge(['b0.json', 'edited.json'], dir).stderr).toMatch(/edited\.json is from another plan for dz/);
     const twice = merge(['b0.json', 'b2.json', 'b2.json'], dir);
     expect(twice.status).toBe(2);
     expect(twice.stderr).toMatch(/b2\.json repeats shard 2\/4/);
