@@ -5,7 +5,10 @@ import { DEFAULT_SEED } from '../parallel/seeds.js';
 import { choiceOption, codeOptions, floatOption, intOption, loadCodeInput, printJson, type CodeOptions } from './input.js';
 import { EXIT_NO, ExitWith } from './main.js';
 import { startRun } from './run-control.js';
+import { parseShard } from './search.js';
+import { matrixHash } from '../codes/hash.js';
 import type { AuditProgress } from '../distance/audit.js';
+import type { DistanceReport } from '../distance/result.js';
 
 interface DistanceOptions extends CodeOptions {
   generator?: string;
@@ -20,6 +23,7 @@ interface DistanceOptions extends CodeOptions {
   maxWords?: string;
   json?: boolean;
   progress?: boolean;
+  shard?: string;
 }
 
 export function registerDistance(program: Command): void {
@@ -34,6 +38,7 @@ export function registerDistance(program: Command): void {
     .option('--target-miss <p>', 'stop the information-set search once the miss probability is below p (default 1e-6)')
     .option('--enumeration-limit <n>', 'largest certifying enumeration auto plans for, in combinations (default 1e9)')
     .option('--max-words <n>', 'most minimum-weight words kept per side (default 200000); beyond it the count is a lower bound')
+    .option('--shard <i/n>', 'run shard I of N (0-based) of a fixed plan: a disjoint share of its chunks; combine with merge')
     .option('--progress', 'progress on stderr even when it is not a terminal')
     .option('--json', 'print one JSON object')
     .action(async (o: DistanceOptions) => {
@@ -48,21 +53,27 @@ export function registerDistance(program: Command): void {
       const targetMiss = o.targetMiss === undefined ? undefined : floatOption('target-miss', o.targetMiss, 0, 0, 1);
       const enumerationLimit = floatOption('enumeration-limit', o.enumerationLimit, DEFAULT_ENUMERATION_LIMIT, 0);
       const maxWords = intOption('max-words', o.maxWords, DEFAULT_MAX_WORDS, 1);
+      const shard = parseShard(o.shard);
 
       let input: Parameters<typeof auditDistance>[1];
+      let codeHash: Record<string, string>;
       if (o.generator !== undefined) {
         if (o.hx !== undefined || o.hz !== undefined || o.family !== undefined || o.h !== undefined) {
           throw new InputError('--generator takes the place of --h, --family and --hx/--hz: give only one input');
         }
         if (o.side !== undefined) throw new InputError('--side applies to CSS codes only');
-        input = { kind: 'classical', problem: classicalGeneratorProblem(readMatrixFile(o.generator)), label: o.generator };
+        const g = readMatrixFile(o.generator);
+        input = { kind: 'classical', problem: classicalGeneratorProblem(g), label: o.generator };
+        codeHash = { generator: matrixHash(g) };
       } else {
         const loaded = loadCodeInput(o);
         if (loaded.kind === 'css') {
           input = { kind: 'css', code: loaded.code, label: loaded.label, side: choiceOption('side', o.side, ['x', 'z', 'both'] as const, 'both') };
+          codeHash = { hx: matrixHash(loaded.code.hx), hz: matrixHash(loaded.code.hz) };
         } else {
           if (o.side !== undefined) throw new InputError('--side applies to CSS codes only');
           input = { kind: 'classical', problem: classicalCheckProblem(loaded.h), label: loaded.label };
+          codeHash = { h: matrixHash(loaded.h) };
         }
       }
 
@@ -88,9 +99,9 @@ export function registerDistance(program: Command): void {
         shown = true;
       };
       let interrupted = false;
-      let report;
+      let report: DistanceReport & { codeHash?: Record<string, string> };
       try {
-        report = await auditDistance(control.pool, input, { method, seed, iterations, targetMiss, enumerationLimit, maxWords }, {
+        report = await auditDistance(control.pool, input, { method, seed, iterations, targetMiss, enumerationLimit, maxWords, ...(shard ? { shard } : {}) }, {
           shouldStop: control.shouldStop,
           stopReason: () => {
             if ((Date.now() - started) / 1000 >= timeLimit) return 'time-limit';
@@ -103,10 +114,12 @@ export function registerDistance(program: Command): void {
         if (shown && tty) process.stderr.write('\n');
         await control.close();
       }
+      report = { ...report, codeHash };
       if (o.json) printJson(report);
       else process.stdout.write(formatDistanceText(report) + `elapsed ${((Date.now() - started) / 1000).toFixed(2)} s\n`);
       if (interrupted) throw new ExitWith(130);
-      if (method === 'certify') {
+      // a shard alone rarely certifies: the check is for the merged result (exit 0 so that job arrays go on)
+      if (method === 'certify' && !(shard && shard.count > 1)) {
         const certified = report.kind === 'classical' ? report.d.certified : [report.dx, report.dz].every((s) => s === undefined || s.certified);
         if (!certified) throw new ExitWith(EXIT_NO);
       }

@@ -10,9 +10,13 @@ import { decoderMatrix, type DecoderMatrix, trialCode } from '../decode/trial-en
 import { formatRate, formatTrialText } from '../decode/trial-text.js';
 import { InputError } from '../errors.js';
 import { readMatrixFile } from '../formats/index.js';
-import { defaultWorkers, openPool } from '../parallel/pool.js';
+import { defaultWorkers } from '../parallel/pool.js';
 import { DEFAULT_SEED } from '../parallel/seeds.js';
+import { matrixHash } from '../codes/hash.js';
 import { choiceOption, codeOptions, floatOption, intOption, loadCodeInput, printJson, requireCss, type CodeOptions } from './input.js';
+import { parseShard } from './search.js';
+import { ExitWith } from './main.js';
+import { startRun } from './run-control.js';
 
 interface TrialOptions extends CodeOptions {
   withX?: string;
@@ -36,6 +40,7 @@ interface TrialOptions extends CodeOptions {
   batch?: string;
   seed?: string;
   workers?: string;
+  shard?: string;
   json?: boolean;
 }
 
@@ -104,6 +109,7 @@ export function registerTrial(program: Command): void {
     .option('--batch <n>', 'shots per numbered batch (part of what the seed reproduces)', String(DEFAULT_BATCH))
     .option('--seed <seed>', `random seed (default ${DEFAULT_SEED})`)
     .option('--workers <n>', 'worker threads (default: all cores); results do not depend on it')
+    .option('--shard <i/n>', 'decode only the batches ≡ I (mod N) of every point (0-based); combine the N results with merge')
     .option('--json', 'print one JSON object')
     .action(async (o: TrialOptions) => {
       const input = requireCss(loadCodeInput(o), 'trial');
@@ -155,20 +161,27 @@ export function registerTrial(program: Command): void {
         timeLimit: o.timeLimit === undefined ? null : floatOption('time-limit', o.timeLimit, 0, 0),
         batch: intOption('batch', o.batch, DEFAULT_BATCH, 1),
         seed: parseSeed(o.seed),
+        ...(o.shard !== undefined ? { shard: parseShard(o.shard)! } : {}),
       };
+      if (plan.shard && plan.failures !== null && plan.shard.count > 1) {
+        process.stderr.write(`overcheck: warning: --failures with --shard: each shard stops a point at ⌈${plan.failures}/${plan.shard.count}⌉ = ${Math.ceil(plan.failures / plan.shard.count)} failures of its own batches, so the merged counts will not be those of one run (marked exact: false); use --shots alone for an exact split\n`);
+      }
       const total = pointShots(plan);
       if (samples.kind === 'weight' && samples.exhaustive) {
         if (total > MAX_EXHAUSTIVE) throw new InputError(`--weight ${samples.weight} --exhaustive: ${total.toExponential(3)} errors; too many, drop --exhaustive to sample them`);
         if (o.shots !== undefined) process.stderr.write('overcheck: warning: --shots is ignored with --exhaustive (every error of the weight is decoded)\n');
       }
       const workers = intOption('workers', o.workers, defaultWorkers(), 0);
-      const pool = await openPool(workers <= 1 ? 0 : workers);
+      // SIGINT/SIGTERM: finish the batches in flight, print what was decoded (points marked interrupted), exit 130
+      const control = await startRun({ workers: String(workers <= 1 ? 0 : workers), what: 'trial' });
+      const pool = control.pool;
       const tty = process.stderr.isTTY === true;
       let lastProgress = 0;
       let result;
       try {
         result = await runTrial(plan, pool, {
           now: () => performance.now(),
+          shouldStop: control.shouldStop,
           onProgress: tty
             ? (p, _pi, counts, shots) => {
                 const t = performance.now();
@@ -180,17 +193,20 @@ export function registerTrial(program: Command): void {
             : undefined,
         });
       } finally {
-        await pool.close();
+        await control.close();
         if (tty) process.stderr.write('\r\x1b[K');
       }
+      const interrupted = result.points.some((p) => p.stoppedBy === 'interrupted');
       const summary = summarizeCode(input.code);
       if (o.json) {
         printJson({
           ...result,
           code: { label: input.label, n: summary.n, k: summary.k },
-          matrices: matrices.map((m) => ({ label: m.label, xRows: m.dx.rows, zRows: m.dz.rows, spansX: m.spansX, spansZ: m.spansZ })),
+          codeHash: { hx: matrixHash(input.code.hx), hz: matrixHash(input.code.hz) },
+          matrices: matrices.map((m) => ({ label: m.label, xRows: m.dx.rows, zRows: m.dz.rows, spansX: m.spansX, spansZ: m.spansZ, xHash: matrixHash(m.dx), zHash: matrixHash(m.dz) })),
           workers: pool.workers,
         });
+        if (interrupted) throw new ExitWith(130);
         return;
       }
       const osd = decoder.osd.kind === 'none' ? 'no OSD' : decoder.osd.kind === 'order0' ? 'OSD order 0' : `OSD combination sweep order ${decoder.osd.order}`;
@@ -203,5 +219,6 @@ export function registerTrial(program: Command): void {
           ...matrices.map((m) => `matrix   ${m.label}: ${m.dx.rows} X-checks, ${m.dz.rows} Z-checks`),
         ]),
       );
+      if (interrupted) throw new ExitWith(130);
     });
 }

@@ -6,6 +6,7 @@ import { FixedWeightErrors } from './error-samples.js';
 import { pairedDifferenceInterval, wilsonInterval } from './statistics.js';
 import { type SampleMode, trialBatch, type TrialBatchResult, type TrialBatchTask } from './trial-batch.js';
 import { addCounts, type DecoderMatrix, emptyCounts, type MatrixCounts, type TrialCode } from './trial-engine.js';
+import { shardBatchCount, shardExactness, type TrialShardRecord } from './trial-shard.js';
 
 /** Everything a trial run needs. Matrix 0 is the baseline of the paired comparisons. */
 export interface TrialPlan {
@@ -24,9 +25,16 @@ export interface TrialPlan {
   /** Shots per numbered batch (fixes the random streams; any worker count gives the same result). */
   readonly batch: number;
   readonly seed: string | number;
+  /**
+   * Run only the batches i ≡ index (mod count) of every point: N shards together decode exactly the batches
+   * of one run (for a fixed shot count). The failure rule then applies to this shard's own batches with
+   * threshold ⌈failures / count⌉, which no longer reproduces one run (see trial-shard.ts).
+   */
+  readonly shard?: { readonly index: number; readonly count: number };
 }
 
-export type StopReason = 'shots' | 'failures' | 'time';
+/** Why a point stopped; 'interrupted' by a signal (hooks.shouldStop), 'partial' only in merged results with shards missing. */
+export type StopReason = 'shots' | 'failures' | 'time' | 'interrupted' | 'partial';
 
 /** One (matrix, p) point. */
 export interface PointResult {
@@ -39,6 +47,8 @@ export interface PointResult {
   rate: number;
   interval: [number, number];
   meanIterations: number;
+  /** Sum of BP iterations over the shots (meanIterations × shots, kept exact for merging). */
+  iterationSum: number;
   maxIterations: number;
   osdRuns: number;
   decodesPerSecond: number;
@@ -63,10 +73,17 @@ export interface TrialResult {
   comparisons: Comparison[];
   seed: string | number;
   batch: number;
+  ps: number[];
+  /** Shot cap per point (or the size of the enumeration for exhaustive points). */
+  shots: number;
+  /** The --failures rule, null when not given. */
+  failures: number | null;
   noise: NoiseModel;
   samples: SampleMode;
   decoder: DecoderOptions;
   elapsedSeconds: number;
+  /** With plan.shard: which batches this run decoded, for `overcheck merge`. */
+  shard?: TrialShardRecord;
 }
 
 /** Counts of all matrices at one point, and why it stopped. */
@@ -122,10 +139,16 @@ function batchTask(plan: TrialPlan, key: string, ch: Channel, total: number, i: 
   };
 }
 
-/** Merge one batch (in index order); returns whether the failure rule now stops the point. */
-function mergeBatch(plan: TrialPlan, into: MatrixCounts[], r: TrialBatchResult): boolean {
+/** Merge one batch (in index order); returns whether the failure rule (threshold, null: none) now stops the point. */
+function mergeBatch(threshold: number | null, into: MatrixCounts[], r: TrialBatchResult): boolean {
   r.counts.forEach((c, k) => addCounts(into[k]!, c));
-  return plan.failures !== null && into.every((c) => c.failures >= plan.failures!);
+  return threshold !== null && into.every((c) => c.failures >= threshold);
+}
+
+/** The failure threshold a process applies: the whole rule unsharded, ⌈F/N⌉ of its own batches as shard I/N. */
+export function failureThreshold(plan: Pick<TrialPlan, 'failures' | 'shard'>): number | null {
+  if (plan.failures === null) return null;
+  return plan.shard ? Math.ceil(plan.failures / plan.shard.count) : plan.failures;
 }
 
 /**
@@ -139,7 +162,7 @@ export function trialPoint(plan: TrialPlan, p: number, clock?: () => number): Po
   const counts = plan.matrices.map(emptyCounts);
   const batches = Math.ceil(total / plan.batch);
   for (let i = 0; i < batches; i++) {
-    if (mergeBatch(plan, counts, trialBatch(batchTask(plan, key, ch, total, i), clock))) return { counts, stoppedBy: 'failures' };
+    if (mergeBatch(plan.failures, counts, trialBatch(batchTask(plan, key, ch, total, i), clock))) return { counts, stoppedBy: 'failures' };
   }
   return { counts, stoppedBy: 'shots' };
 }
@@ -147,6 +170,8 @@ export function trialPoint(plan: TrialPlan, p: number, clock?: () => number): Po
 export interface RunHooks {
   /** Milliseconds, for the time limit and decodes/s. */
   now: () => number;
+  /** Asked before each batch is started (a signal): a yes ends this point and skips the rest ('interrupted'). */
+  shouldStop?: () => boolean;
   /** Called after each merged batch. */
   onProgress?: (p: number, pointIndex: number, counts: readonly MatrixCounts[], totalShots: number) => void;
 }
@@ -156,44 +181,62 @@ export async function runTrial(plan: TrialPlan, pool: TaskPool, hooks: RunHooks)
   const key = planKey(plan);
   const total = pointShots(plan);
   const batches = Math.ceil(total / plan.batch);
+  // this process's batches: all of them, or with shard I/N those ≡ I (mod N), in increasing order
+  const shard = plan.shard ?? { index: 0, count: 1 };
+  const mine = shardBatchCount(batches, shard.index, shard.count);
+  const batchId = (t: number) => shard.index + t * shard.count;
+  // the shard's own share of the failure rule
+  const threshold = failureThreshold(plan);
   const started = hooks.now();
   const points: PointResult[] = [];
   const comparisons: Comparison[] = [];
+  const record: TrialShardRecord['points'] = [];
   for (let pi = 0; pi < plan.ps.length; pi++) {
     const p = plan.ps[pi]!;
     const ch: Channel = { model: plan.noise, p };
     const counts = plan.matrices.map(emptyCounts);
     let stoppedBy: StopReason | null = null;
+    let merged = 0;
     const deadline = plan.timeLimit === null ? Infinity : hooks.now() + (started + plan.timeLimit * 1000 - hooks.now()) / (plan.ps.length - pi);
     await runOrdered<TrialBatchResult>(
       pool,
-      batches,
-      (i) => ({ kind: 'trial-batch', payload: batchTask(plan, key, ch, total, i) }),
+      mine,
+      (t) => ({ kind: 'trial-batch', payload: batchTask(plan, key, ch, total, batchId(t)) }),
       (_, r) => {
         if (stoppedBy !== null) return; // a batch started before the stop: not part of the point
-        if (mergeBatch(plan, counts, r)) stoppedBy = 'failures';
+        merged++;
+        if (mergeBatch(threshold, counts, r)) stoppedBy = 'failures';
         else if (hooks.now() > deadline) stoppedBy = 'time';
         hooks.onProgress?.(p, pi, counts, total);
       },
-      () => stoppedBy !== null || hooks.now() > deadline,
+      () => stoppedBy !== null || hooks.now() > deadline || (hooks.shouldStop?.() ?? false),
     );
-    const reason: StopReason = stoppedBy ?? (counts[0]!.shots < total ? 'time' : 'shots');
+    const reason: StopReason = stoppedBy ?? (merged < mine ? (hooks.shouldStop?.() ? 'interrupted' : 'time') : 'shots');
     points.push(...pointResults(plan, p, counts, reason));
     comparisons.push(...pointComparisons(plan, p, counts));
+    record.push({ p, batches, done: { [String(shard.index)]: merged }, stoppedBy: { [String(shard.index)]: reason } });
   }
-  return {
+  const result: TrialResult = {
     points,
     comparisons,
     seed: plan.seed,
     batch: plan.batch,
+    ps: [...plan.ps],
+    shots: total,
+    failures: plan.failures,
     noise: plan.noise,
     samples: plan.samples,
     decoder: plan.decoder,
     elapsedSeconds: (hooks.now() - started) / 1000,
   };
+  if (plan.shard) {
+    const exact = shardExactness(record, [shard.index], shard.count, plan.failures, points);
+    result.shard = { count: shard.count, parts: [shard.index], failuresPerShard: threshold, points: record, exact: exact.exact, ...(exact.why ? { why: exact.why } : {}) };
+  }
+  return result;
 }
 
-export function pointResults(plan: Pick<TrialPlan, 'matrices'>, p: number, counts: readonly MatrixCounts[], stoppedBy: StopReason): PointResult[] {
+export function pointResults(plan: { readonly matrices: readonly { readonly label: string }[] }, p: number, counts: readonly MatrixCounts[], stoppedBy: StopReason): PointResult[] {
   return counts.map((c, k) => ({
     label: plan.matrices[k]!.label,
     p,
@@ -204,6 +247,7 @@ export function pointResults(plan: Pick<TrialPlan, 'matrices'>, p: number, count
     rate: c.shots > 0 ? c.failures / c.shots : 0,
     interval: wilsonInterval(c.failures, c.shots),
     meanIterations: c.shots > 0 ? c.iterationSum / c.shots : 0,
+    iterationSum: c.iterationSum,
     maxIterations: c.iterationMax,
     osdRuns: c.osdRuns,
     decodesPerSecond: c.seconds > 0 ? c.shots / c.seconds : 0,
@@ -211,7 +255,7 @@ export function pointResults(plan: Pick<TrialPlan, 'matrices'>, p: number, count
   }));
 }
 
-export function pointComparisons(plan: Pick<TrialPlan, 'matrices'>, p: number, counts: readonly MatrixCounts[]): Comparison[] {
+export function pointComparisons(plan: { readonly matrices: readonly { readonly label: string }[] }, p: number, counts: readonly MatrixCounts[]): Comparison[] {
   const out: Comparison[] = [];
   for (let k = 1; k < counts.length; k++) {
     const c = counts[k]!;

@@ -28,6 +28,11 @@ export function formatTrialText(result: TrialResult, header: readonly string[]):
     lines.push('', 'paired on the same errors:', ...table(crows));
   }
   lines.push('', `seed ${result.seed}, batches of ${result.batch} shots, ${result.elapsedSeconds.toFixed(2)} s`);
+  const sh = result.shard;
+  if (sh) {
+    const which = sh.parts.length === 1 ? `shard ${sh.parts[0]}/${sh.count}: batches ≡ ${sh.parts[0]} (mod ${sh.count})` : `shards ${sh.parts.join(', ')} of ${sh.count}`;
+    lines.push(`${which}; ${sh.exact ? 'the counts are those of one run' : `not the counts of one run: ${sh.why ?? ''}`}`);
+  }
   return `${lines.join('\n')}\n`;
 }
 

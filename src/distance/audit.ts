@@ -21,26 +21,22 @@ import { packedSupport } from '../gf2/bitmatrix.js';
 import { EnumerationSchedule, type EnumerationGoal, goalMet, planEnumeration, remainingCost } from './brouwer-zimmermann.js';
 import { runEnumerationPhase, runExhaustivePhase } from './certify.js';
 import { cssSideProblem, type DistanceProblem, type Side } from './problem.js';
-import { combineSides, type DistanceReport, type SideReport, type SideStop } from './result.js';
+import { type AuditReportSettings, combineSides, type DistanceReport, type SideReport, type SideStop } from './result.js';
 import { type IsdStage, isdCode, rangeMiss, runInformationSetPhase } from './upper.js';
 import { WordCollection } from './words.js';
+import {
+  AUTO_EXHAUSTIVE_DIM, DEFAULT_ENUMERATION_LIMIT, DEFAULT_MAX_WORDS, DEFAULT_TARGET_MISS, EXHAUSTIVE_MAX_DIM, FREE_ENUMERATION,
+  WARMUP_TARGET_MISS, Z_STREAM_BASE,
+} from './defaults.js';
+import { auditSideFixed } from './fixed-plan.js';
 
 export type DistanceMethod = 'auto' | 'exhaustive' | 'isd' | 'certify';
 export const DISTANCE_METHODS: readonly DistanceMethod[] = ['auto', 'exhaustive', 'isd', 'certify'];
 
-/** Combinations every non-exhaustive run spends on a first lower bound. */
-export const FREE_ENUMERATION = 1 << 20;
-/** auto enumerates all 2^K codewords up to this dimension. */
-export const AUTO_EXHAUSTIVE_DIM = 22;
-/** Largest dimension exhaustive enumeration accepts (2^32 codewords: tens of seconds). */
-export const EXHAUSTIVE_MAX_DIM = 32;
-export const DEFAULT_TARGET_MISS = 1e-6;
-/** Information-set warm-up before an enumeration (which finds the minimum by itself anyway). */
-export const WARMUP_TARGET_MISS = 1e-3;
-export const DEFAULT_ENUMERATION_LIMIT = 1e9;
-export const DEFAULT_MAX_WORDS = 200_000;
-/** Stream offset of side z, so that `--side z` reproduces the z half of `--side both`. */
-export const Z_STREAM_BASE = 2 ** 30;
+export {
+  FREE_ENUMERATION, AUTO_EXHAUSTIVE_DIM, EXHAUSTIVE_MAX_DIM, DEFAULT_TARGET_MISS, WARMUP_TARGET_MISS,
+  DEFAULT_ENUMERATION_LIMIT, DEFAULT_MAX_WORDS, Z_STREAM_BASE,
+} from './defaults.js';
 
 export interface AuditSettings {
   readonly method: DistanceMethod;
@@ -53,6 +49,8 @@ export interface AuditSettings {
   readonly enumerationLimit?: number;
   /** Most minimum-weight words kept per side (default DEFAULT_MAX_WORDS); beyond it the count is "at least". */
   readonly maxWords?: number;
+  /** Run the fixed plan (fixed-plan.ts), only the chunks ≡ index (mod count) of each phase. */
+  readonly shard?: { readonly index: number; readonly count: number };
 }
 
 export interface AuditProgress {
@@ -75,6 +73,7 @@ export interface AuditControl {
 
 /** Audit one side (or a classical code). */
 export async function auditSide(pool: TaskPool, problem: DistanceProblem, streamBase: number, s: AuditSettings, control: AuditControl): Promise<SideReport> {
+  if (s.shard) return auditSideFixed(pool, problem, streamBase, s, control);
   const b = problem.basis;
   const K = b.dim;
   if (K === 0) throw new InputError(`${problem.key}: the code has dimension 0, so there is no nonzero word and no distance`);
@@ -255,7 +254,7 @@ export type DistanceInput =
 export async function auditDistance(pool: TaskPool, input: DistanceInput, s: AuditSettings, control: AuditControl): Promise<DistanceReport> {
   if (input.kind === 'classical') {
     const d = await auditSide(pool, input.problem, 0, s, control);
-    return { kind: 'classical', code: input.label, n: input.problem.n, k: input.problem.basis.dim, seed: s.seed, method: s.method, d };
+    return { kind: 'classical', code: input.label, n: input.problem.n, k: input.problem.basis.dim, seed: s.seed, method: s.method, settings: reportedSettings(s), ...shardOf(s), d };
   }
   const logicals = logicalBasis(input.code);
   if (logicals.k === 0) throw new InputError(`${input.label}: the code encodes no logical qubits (k = 0), so it has no logical operators and no distance`);
@@ -272,8 +271,24 @@ export async function auditDistance(pool: TaskPool, input: DistanceInput, s: Aud
     k: logicals.k,
     seed: s.seed,
     method: s.method,
+    settings: reportedSettings(s),
+    ...shardOf(s),
     side: input.side,
     ...out,
     d: combineSides(out.dx, out.dz),
   };
+}
+
+/** The options that fix what a run computes (with the seed and method), as results report them. */
+function reportedSettings(s: AuditSettings): AuditReportSettings {
+  return {
+    iterations: s.iterations ?? null,
+    targetMiss: s.targetMiss ?? null,
+    enumerationLimit: s.enumerationLimit ?? DEFAULT_ENUMERATION_LIMIT,
+    maxWords: s.maxWords ?? DEFAULT_MAX_WORDS,
+  };
+}
+
+function shardOf(s: AuditSettings): { shard?: { count: number; parts: number[] } } {
+  return s.shard ? { shard: { count: s.shard.count, parts: [s.shard.index] } } : {};
 }

@@ -110,7 +110,7 @@ export interface ExhaustivePhaseResult {
 }
 
 /** Distinct words one Gray-code chunk may return. */
-const GRAY_MAX_WORDS = 1 << 18;
+export const GRAY_MAX_WORDS = 1 << 18;
 
 /**
  * Visit all 2^dim codewords with the search stage's Gray-code kernel (chunks merged in order), keeping the

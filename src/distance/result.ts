@@ -2,6 +2,7 @@
  * Result objects of a distance audit and their text form. A run produces these plain objects; the CLI
  * prints them as JSON or through `formatDistanceText`.
  */
+import type { ShardSideRecord } from './shard-record.js';
 
 /** What ended a side's run. */
 export type SideStop =
@@ -12,7 +13,8 @@ export type SideStop =
   | 'enumeration-limit'
   | 'word-limit' // an exhaustive chunk met more words within the limit than it may return
   | 'time-limit'
-  | 'interrupted';
+  | 'interrupted'
+  | 'partial'; // a merge of sharded results with shards missing
 
 export interface EnumerationSummary {
   /** Information sets used: their size, rank and the last level enumerated completely. */
@@ -58,6 +60,22 @@ export interface SideReport {
   };
   readonly enumeration: EnumerationSummary | null;
   readonly exhaustive: { readonly visited: number; readonly total: number } | null;
+  /** Sharded runs (--shard I/N): the fixed plan, which chunks were done, the minimum-weight words (shard-record.ts). */
+  readonly shard?: ShardSideRecord;
+}
+
+/** The options that fix what a run computes, besides seed and method. */
+export interface AuditReportSettings {
+  readonly iterations: number | null;
+  readonly targetMiss: number | null;
+  readonly enumerationLimit: number;
+  readonly maxWords: number;
+}
+
+/** Which shards of how many a sharded result holds. */
+export interface ReportShard {
+  readonly count: number;
+  readonly parts: readonly number[];
 }
 
 export interface CssDistanceReport {
@@ -67,6 +85,8 @@ export interface CssDistanceReport {
   readonly k: number;
   readonly seed: string | number;
   readonly method: string;
+  readonly settings: AuditReportSettings;
+  readonly shard?: ReportShard;
   readonly side: 'x' | 'z' | 'both';
   readonly dx?: SideReport;
   readonly dz?: SideReport;
@@ -81,6 +101,8 @@ export interface ClassicalDistanceReport {
   readonly k: number;
   readonly seed: string | number;
   readonly method: string;
+  readonly settings: AuditReportSettings;
+  readonly shard?: ReportShard;
   readonly d: SideReport;
 }
 
@@ -133,5 +155,9 @@ export function formatDistanceText(r: DistanceReport): string {
     lines.push(...sideLines('d', r.d, null));
   }
   lines.push(`seed ${r.seed}, method ${r.method}`);
+  if (r.shard) {
+    const which = r.shard.parts.length === 1 ? `shard ${r.shard.parts[0]}/${r.shard.count}` : `shards ${r.shard.parts.join(', ')} of ${r.shard.count}`;
+    lines.push(`${which} of a fixed plan${r.shard.parts.length < r.shard.count ? ' (bounds from this part of the work only; combine the shards with overcheck merge)' : ''}`);
+  }
   return lines.join('\n') + '\n';
 }

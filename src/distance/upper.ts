@@ -30,7 +30,7 @@ export interface IsdStage {
 /** Stage lengths in chunks: short first (the upper bound drops fast), then 16 chunks per re-plan. */
 const STAGE_CHUNKS = [2, 4, 8, 16];
 /** Distinct words one chunk may return (the count stays "at least" anyway). */
-const CHUNK_MAX_WORDS = 1 << 14;
+export const CHUNK_MAX_WORDS = 1 << 14;
 
 /** The code and filter in the form the search kernel takes, plus what its analysis needs. */
 export interface IsdCode {
@@ -68,7 +68,7 @@ function distinctColumns(g: Uint32Array, rows: number, n: number): number {
 }
 
 /** Probability that one given word of weight w was missed by all the stages (they are independent). */
-export function stagesMiss(code: IsdCode, stages: readonly IsdStage[], w: number): number {
+export function stagesMiss(code: Pick<IsdCode, 'effectiveLength' | 'dim'>, stages: readonly IsdStage[], w: number): number {
   let m = 1;
   for (const s of stages) {
     for (const [length, count] of s.chunks) m *= Math.pow(settingsMiss(code.effectiveLength, code.dim, w, s.settings, length), count);
@@ -77,10 +77,90 @@ export function stagesMiss(code: IsdCode, stages: readonly IsdStage[], w: number
 }
 
 /** The largest per-word miss probability over weights [from, to] (0 when the range is empty). */
-export function rangeMiss(code: IsdCode, stages: readonly IsdStage[], from: number, to: number): number {
+export function rangeMiss(code: Pick<IsdCode, 'effectiveLength' | 'dim'>, stages: readonly IsdStage[], from: number, to: number): number {
   let worst = 0;
   for (let w = Math.max(1, from); w <= to; w++) worst = Math.max(worst, stagesMiss(code, stages, w));
   return worst;
+}
+
+/**
+ * The heaviest weight below U that a run can hit at all (Lee–Brickell p = 2 success ≥ 1e-12 per information
+ * set), or a value below max(1, lowerBound) when there is none worth searching for.
+ */
+export function reachableWeight(code: Pick<IsdCode, 'effectiveLength' | 'dim'>, U: number): number {
+  let w = U - 1;
+  while (w >= 1 && leeBrickellSuccess(code.effectiveLength, code.dim, w, 2) < 1e-12) w--;
+  return w;
+}
+
+/**
+ * A fixed information-set search (the form sharded runs use, see fixed-plan.ts): one stage planned as the
+ * first stage of runInformationSetPhase would be, W = U for every chunk, and a total fixed in advance.
+ */
+export interface FixedIsdPlan {
+  readonly settings: IsdSettings;
+  /** Weight limit of every chunk (the upper bound when the plan was made). */
+  readonly maxWeight: number;
+  /** Information sets of the whole run, and per chunk (the last chunk takes the rest). */
+  readonly iterations: number;
+  readonly chunkIterations: number;
+  readonly chunks: number;
+  /** What fixed the total: the miss target (over weights lower..reachable) or --iterations. */
+  readonly rule: 'target-miss' | 'iterations';
+  readonly targetMiss: number | null;
+}
+
+/** Largest information-set total a fixed plan derives from a target by itself. */
+const FIXED_MAX_ITERATIONS = 1e13;
+
+/**
+ * Plan a fixed search for words lighter than U, given a proven lower bound: the settings for the heaviest
+ * reachable weight below U, and the fewest whole chunks after which every weight in [lower, that weight] has
+ * miss probability ≤ targetMiss (capped by maxIterations); exactly maxIterations when targetMiss is null.
+ * Null when there is nothing to search for. Depends only on its arguments.
+ */
+export function planFixedIsd(code: IsdCode, U: number, lowerBound: number, targetMiss: number | null, maxIterations: number | undefined): FixedIsdPlan | null {
+  const low = Math.max(1, lowerBound);
+  const planWeight = reachableWeight(code, U);
+  if (planWeight < low) return null;
+  let plan;
+  try {
+    plan = planSearch({
+      n: code.effectiveLength, k: code.dim, maxWeight: planWeight, method: 'isd', targetMiss: targetMiss ?? 1e-6,
+      density: code.density.mean, sparseRows: code.density.sparseRows,
+    });
+  } catch (e) {
+    if (e instanceof InputError) return null;
+    throw e;
+  }
+  if (plan.method !== 'isd') throw new Error('distance: the planner was asked for information-set search');
+  const per = plan.chunkIterations;
+  let total: number;
+  let rule: FixedIsdPlan['rule'] = 'iterations';
+  if (targetMiss === null) {
+    total = maxIterations ?? 0;
+  } else {
+    let chunks = 0;
+    for (let w = low; w <= planWeight; w++) {
+      const m = settingsMiss(code.effectiveLength, code.dim, w, plan.settings, per);
+      if (m <= targetMiss) { chunks = Math.max(chunks, 1); continue; }
+      if (!(m < 1)) { chunks = Infinity; break; }
+      let c = Math.ceil(Math.log(targetMiss) / Math.log(m));
+      while (c > 1 && Math.pow(m, c - 1) <= targetMiss) c--;
+      while (Math.pow(m, c) > targetMiss) c++;
+      chunks = Math.max(chunks, c);
+    }
+    const need = chunks * per;
+    if (maxIterations !== undefined && maxIterations <= need) total = maxIterations;
+    else if (need > FIXED_MAX_ITERATIONS) {
+      throw new InputError(`a fixed plan (--shard) would need more than ${FIXED_MAX_ITERATIONS.toExponential(0)} information sets to bring the miss probability below ${targetMiss}; give --iterations`);
+    } else {
+      total = need;
+      rule = 'target-miss';
+    }
+  }
+  if (total <= 0) return null;
+  return { settings: plan.settings, maxWeight: U, iterations: total, chunkIterations: per, chunks: Math.ceil(total / per), rule, targetMiss };
 }
 
 export interface IsdPhaseOptions {
@@ -128,8 +208,7 @@ export async function runInformationSetPhase(
     if (U - 1 < Math.max(1, o.lowerBound)) return { stoppedBy: 'target-miss' };
     // plan for the heaviest weight below U that a run can hit at all (Lee–Brickell p = 2 success ≥ 1e-12 per
     // information set); heavier words are beyond any number of iterations, whatever the settings
-    let planWeight = U - 1;
-    while (planWeight >= 1 && leeBrickellSuccess(code.effectiveLength, code.dim, planWeight, 2) < 1e-12) planWeight--;
+    const planWeight = reachableWeight(code, U);
     if (planWeight < Math.max(1, o.lowerBound)) return { stoppedBy: 'unreachable' };
     let plan;
     try {

@@ -19,6 +19,8 @@ export function defaultWorkers(): number {
 class InlinePool implements TaskPool {
   readonly workers = 0;
   async run<R>(kind: string, payload: unknown): Promise<R> {
+    // let the event loop run between tasks, so that signal handlers and timers are seen at chunk boundaries
+    await new Promise<void>((resolve) => setImmediate(resolve));
     const h = handlers[kind];
     if (!h) throw new Error(`unknown task kind ${kind}`);
     return (h as (p: unknown) => unknown)(payload) as R;
