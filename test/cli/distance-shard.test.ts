@@ -44,7 +44,7 @@ async function shardsAndOne(args: string[], dir: string, prefix: string) {
 describe('distance --shard and merge', () => {
   it('certify: 4 shards merged equal the whole plan in one process; the lower bound is what the finished chunks prove', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'oc-distance-shard-'));
-    const args = ['distance', '--family', 'surface:d=9', '--method', 'certify', '--seed', '5', '--workers', '1', '--json'];
+    const args = ['distance', '--family', 'surface:d=9', '--method', 'certify', '--iterations', '8000', '--seed', '5', '--workers', '1', '--json'];
     const [{ one, shards, files }, adaptive] = await Promise.all([shardsAndOne(args, dir, 's'), runAsync(args, dir)]);
     const m = merge(files, dir);
     expect(m.status, m.stderr).toBe(0);
