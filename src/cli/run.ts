@@ -10,7 +10,7 @@ import { InputError } from '../errors.js';
 import { readJsonFile, writeTextFileAtomic } from '../formats/json-file.js';
 import { writeJsonFile } from '../formats/json-out.js';
 import { readWordsFile } from '../formats/words-file.js';
-import { DEFAULT_CONFIG, parseRunConfig, type RunConfig } from '../pipeline/config.js';
+import { parseRunConfig, type RunConfig } from '../pipeline/config.js';
 import { VERSION } from '../version.js';
 import { runConditioning } from './condition.js';
 import { loadCodeInput, printJson, requireCss } from './input.js';
@@ -247,8 +247,6 @@ function safeResume(path: string): string | undefined {
   }
 }
 
-export { DEFAULT_CONFIG };
-export type { RunConfig };
 
 /** The exported matrices of the bundle (sides not conditioned keep the original matrix). */
 function readConditioned(prefix: string, sides: string[], format: MatrixFormat, hx: BitMatrix, hz: BitMatrix): { hx: BitMatrix; hz: BitMatrix } {

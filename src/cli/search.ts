@@ -220,7 +220,7 @@ function checkResume(prev: SideRecord, s: SearchSide, codeHash: string, W: numbe
     if (!solver.contains(v)) throw new InputError(`${path}: word ${i + 1} of side ${s.side} is not in the row space`);
     return v;
   });
-  return { words, iterations: prev.complete ? prev.iterations : prev.iterations, nextStream: prev.nextStream };
+  return { words, iterations: prev.iterations, nextStream: prev.nextStream };
 }
 
 /** `I/N` with 0 ≤ I < N. */

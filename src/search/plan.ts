@@ -1,7 +1,7 @@
 import type { IsdSettings } from './isd.js';
 import { InputError } from '../errors.js';
 import { grayChunkCount, grayLowBits } from './gray.js';
-import { choose, leeBrickellSuccess, logChoose, segmentMissProbability, sternSuccess } from './probability.js';
+import { choose, segmentMissProbability, sternSuccess } from './probability.js';
 
 /** How a row-space search will run, and why; every field is reported with the result. */
 export type SearchPlan =
@@ -152,4 +152,3 @@ export function planSearch(req: PlanRequest): SearchPlan {
   };
 }
 
-export { logChoose, leeBrickellSuccess };

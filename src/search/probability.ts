@@ -83,11 +83,3 @@ export function segmentMissProbability(n: number, k: number, w: number, p: numbe
   for (let i = p + 1; i <= top; i++) miss += cur[i]!;
   return Math.max(0, Math.min(1, miss));
 }
-
-/** Miss probability after `iterations` information sets visited in segments of `segment` visits each. */
-export function chainMissProbability(n: number, k: number, w: number, p: number, segment: number, iterations: number): number {
-  const full = Math.floor(iterations / segment);
-  const rest = iterations - full * segment;
-  const a = full > 0 ? Math.pow(segmentMissProbability(n, k, w, p, segment), full) : 1;
-  return a * (rest > 0 ? segmentMissProbability(n, k, w, p, rest) : 1);
-}
