@@ -102,20 +102,30 @@ export function registerRun(program: Command): void {
         } else {
           const wordsFile = join(dir, 'words.jsonl');
           const resume = existsSync(wordsFile) && !o.fresh ? safeResume(wordsFile) : undefined;
-          const results = await searchSides(
-            sides.map((s) => ({ side: s, h: s === 'x' ? input.code.hx : input.code.hz, symmetry: input.symmetry })),
-            {
-              maxWeight: config.search.maxWeight === null ? undefined : String(config.search.maxWeight),
-              method: config.search.method,
-              seed: String(config.seed),
-              iterations: config.search.iterations === null ? undefined : String(config.search.iterations),
-              targetMiss: String(config.search.targetMiss),
-              maxWords: '2000000',
-              out: resume ? undefined : wordsFile,
-              resume,
-            },
-            stageControl(control, config.search.timeLimit),
-          );
+          const searchOnce = (from: string | undefined) =>
+            searchSides(
+              sides.map((s) => ({ side: s, h: s === 'x' ? input.code.hx : input.code.hz, symmetry: input.symmetry })),
+              {
+                maxWeight: config.search.maxWeight === null ? undefined : String(config.search.maxWeight),
+                method: config.search.method,
+                seed: String(config.seed),
+                iterations: config.search.iterations === null ? undefined : String(config.search.iterations),
+                targetMiss: String(config.search.targetMiss),
+                maxWords: '2000000',
+                out: from ? undefined : wordsFile,
+                resume: from,
+              },
+              stageControl(control, config.search.timeLimit),
+            );
+          let results;
+          try {
+            results = await searchOnce(resume);
+          } catch (e) {
+            // a words file from another configuration (other weight, seed or code) cannot be continued
+            if (!(resume && e instanceof InputError)) throw e;
+            say(`search: ${e.message}; starting the search afresh`);
+            results = await searchOnce(undefined);
+          }
           search = Object.fromEntries(results.map((r) => [r.side, r]));
           if (results.some((r) => r.stopReason === 'interrupted')) {
             interrupted = true;
