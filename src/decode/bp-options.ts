@@ -15,3 +15,34 @@ export interface BpOptions {
 
 export const DEFAULT_ITERATIONS = 32;
 export const DEFAULT_MIN_SUM_SCALE = 0.75;
+
+/** What the iteration driver needs of a BP decoder (binary or quaternary). */
+export interface IterativeDecoder {
+  readonly options: BpOptions;
+  iterations: number;
+  matched: boolean;
+  start(syndrome: Uint8Array): void;
+  iterate(): void;
+  /** Whether the current hard decision reproduces the syndrome. */
+  matches(syndrome: Uint8Array): boolean;
+}
+
+/**
+ * Run up to options.iterations iterations; with earlyStop, stop once the hard decision reproduces the
+ * syndrome (tested before the first iteration too). Returns the number of iterations run.
+ */
+export function runIterations(d: IterativeDecoder, syndrome: Uint8Array): number {
+  d.start(syndrome);
+  const { iterations, earlyStop } = d.options;
+  if (earlyStop) {
+    d.matched = d.matches(syndrome);
+    while (!d.matched && d.iterations < iterations) {
+      d.iterate();
+      d.matched = d.matches(syndrome);
+    }
+  } else {
+    while (d.iterations < iterations) d.iterate();
+    d.matched = d.matches(syndrome);
+  }
+  return d.iterations;
+}

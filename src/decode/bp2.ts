@@ -1,4 +1,4 @@
-import type { BpOptions } from './bp-options.js';
+import { runIterations, type BpOptions, type IterativeDecoder } from './bp-options.js';
 import { type CheckScratch, checkScratch, messageLimit, minSumPass, minSumSerial, sumProductPass, sumProductSerial } from './check-rules.js';
 import { syndromeMatches, type TannerEdges } from './tanner-edges.js';
 
@@ -11,7 +11,7 @@ import { syndromeMatches, type TannerEdges } from './tanner-edges.js';
  * numbers of that domain; posteriorLlr() converts. After a run: `hard` is the decision, `matched` whether
  * H·hard = s, `iterations` how many iterations ran.
  */
-export class BinaryBp {
+export class BinaryBp implements IterativeDecoder {
   readonly g: TannerEdges;
   readonly options: BpOptions;
   /** True for sum-product (ratios), false for min-sum (LLRs). */
@@ -103,19 +103,11 @@ export class BinaryBp {
 
   /** Run up to options.iterations iterations; returns the number run. */
   decode(syndrome: Uint8Array): number {
-    this.start(syndrome);
-    const { iterations, earlyStop } = this.options;
-    if (earlyStop) {
-      this.matched = syndromeMatches(this.g, this.hard, syndrome);
-      while (!this.matched && this.iterations < iterations) {
-        this.iterate();
-        this.matched = syndromeMatches(this.g, this.hard, syndrome);
-      }
-    } else {
-      while (this.iterations < iterations) this.iterate();
-      this.matched = syndromeMatches(this.g, this.hard, syndrome);
-    }
-    return this.iterations;
+    return runIterations(this, syndrome);
+  }
+
+  matches(syndrome: Uint8Array): boolean {
+    return syndromeMatches(this.g, this.hard, syndrome);
   }
 
   /** Posterior LLRs of the current state (a buffer owned by the decoder, refilled on each call). */

@@ -1,5 +1,5 @@
 import type { BitMatrix } from '../gf2/bitmatrix.js';
-import type { BpOptions } from './bp-options.js';
+import { runIterations, type BpOptions, type IterativeDecoder } from './bp-options.js';
 import { type CheckScratch, checkScratch, messageLimit, minSumPass, minSumSerial, sumProductPass, sumProductSerial } from './check-rules.js';
 import { stackedTannerEdges, syndromeMatches, type TannerEdges } from './tanner-edges.js';
 
@@ -24,7 +24,7 @@ import { stackedTannerEdges, syndromeMatches, type TannerEdges } from './tanner-
  * rational function of them: no exp or log at all); min-sum on LLRs (one exp and one log per qubit part and
  * iteration). See check-rules.ts.
  */
-export class QuaternaryBp {
+export class QuaternaryBp implements IterativeDecoder {
   readonly n: number;
   readonly xChecks: number;
   readonly g: TannerEdges;
@@ -129,19 +129,11 @@ export class QuaternaryBp {
   }
 
   decode(syndrome: Uint8Array): number {
-    this.start(syndrome);
-    const { iterations, earlyStop } = this.options;
-    if (earlyStop) {
-      this.matched = syndromeMatches(this.g, this.hard, syndrome);
-      while (!this.matched && this.iterations < iterations) {
-        this.iterate();
-        this.matched = syndromeMatches(this.g, this.hard, syndrome);
-      }
-    } else {
-      while (this.iterations < iterations) this.iterate();
-      this.matched = syndromeMatches(this.g, this.hard, syndrome);
-    }
-    return this.iterations;
+    return runIterations(this, syndrome);
+  }
+
+  matches(syndrome: Uint8Array): boolean {
+    return syndromeMatches(this.g, this.hard, syndrome);
   }
 
   /** Marginal LLRs of the parts (Z parts 0..n−1, X parts n..2n−1): a buffer owned by the decoder. */
