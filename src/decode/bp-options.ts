@@ -46,3 +46,13 @@ export function runIterations(d: IterativeDecoder, syndrome: Uint8Array): number
   }
   return d.iterations;
 }
+
+/**
+ * Decoders keep messages as likelihood ratios (sum-product) or LLRs (min-sum). The posterior LLRs of the
+ * beliefs, written into `llr` (returned).
+ */
+export function posteriorLlrOf(ratioDomain: boolean, belief: Float64Array, llr: Float64Array): Float64Array {
+  if (ratioDomain) for (let v = 0; v < belief.length; v++) llr[v] = Math.log(belief[v]!);
+  else llr.set(belief);
+  return llr;
+}

@@ -1,4 +1,4 @@
-import { runIterations, type BpOptions, type IterativeDecoder } from './bp-options.js';
+import { posteriorLlrOf, runIterations, type BpOptions, type IterativeDecoder } from './bp-options.js';
 import { type CheckScratch, checkScratch, messageLimit, minSumPass, minSumSerial, sumProductPass, sumProductSerial } from './check-rules.js';
 import { syndromeMatches, type TannerEdges } from './tanner-edges.js';
 
@@ -112,10 +112,7 @@ export class BinaryBp implements IterativeDecoder {
 
   /** Posterior LLRs of the current state (a buffer owned by the decoder, refilled on each call). */
   posteriorLlr(): Float64Array {
-    const { belief, llr } = this;
-    if (this.ratioDomain) for (let v = 0; v < belief.length; v++) llr[v] = Math.log(belief[v]!);
-    else llr.set(belief);
-    return llr;
+    return posteriorLlrOf(this.ratioDomain, this.belief, this.llr);
   }
 
   /** LLR of the last check-to-variable message on edge e. */

@@ -1,5 +1,5 @@
 import type { BitMatrix } from '../gf2/bitmatrix.js';
-import { runIterations, type BpOptions, type IterativeDecoder } from './bp-options.js';
+import { posteriorLlrOf, runIterations, type BpOptions, type IterativeDecoder } from './bp-options.js';
 import { type CheckScratch, checkScratch, messageLimit, minSumPass, minSumSerial, sumProductPass, sumProductSerial } from './check-rules.js';
 import { stackedTannerEdges, syndromeMatches, type TannerEdges } from './tanner-edges.js';
 
@@ -138,10 +138,7 @@ export class QuaternaryBp implements IterativeDecoder {
 
   /** Marginal LLRs of the parts (Z parts 0..n−1, X parts n..2n−1): a buffer owned by the decoder. */
   posteriorLlr(): Float64Array {
-    const { belief, llr } = this;
-    if (this.ratioDomain) for (let v = 0; v < belief.length; v++) llr[v] = Math.log(belief[v]!);
-    else llr.set(belief);
-    return llr;
+    return posteriorLlrOf(this.ratioDomain, this.belief, this.llr);
   }
 
   /** LLR of the last check-to-variable message on edge e. */

@@ -1,4 +1,4 @@
-import { spawnSync } from 'node:child_process';
+import { runCli as run } from '../support/cli.js';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -7,13 +7,8 @@ import { readMatrixFile } from '../../src/formats/index.js';
 import { equals, multiply, rank } from '../../src/gf2/index.js';
 import { matrixHash } from '../../src/codes/hash.js';
 
-const BIN = join(import.meta.dirname, '..', '..', 'bin', 'overcheck.js');
 const GB = 'gb:l=24,a=1+x^2+x^8+x^15,b=1+x^2+x^12+x^17';
 
-function run(args: string[], cwd: string) {
-  const r = spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8', cwd });
-  return { code: r.status, out: r.stdout, err: r.stderr };
-}
 
 describe('condition and trim commands', () => {
   const dir = mkdtempSync(join(tmpdir(), 'oc-cond-'));

@@ -1,22 +1,12 @@
-import { spawn, spawnSync } from 'node:child_process';
+import { BIN, runCliAsync as runAsync } from '../support/cli.js';
+import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
-const BIN = join(import.meta.dirname, '..', '..', 'bin', 'overcheck.js');
 const BB90 = 'bb:l=15,m=3,A=x^9+y+y^2,B=1+x^2+x^7';
 
-function runAsync(args: string[], cwd: string): Promise<{ code: number | null; out: string; err: string }> {
-  return new Promise((resolve) => {
-    const c = spawn(process.execPath, [BIN, ...args], { cwd });
-    let out = '';
-    let err = '';
-    c.stdout.on('data', (d) => (out += d));
-    c.stderr.on('data', (d) => (err += d));
-    c.on('exit', (code) => resolve({ code, out, err }));
-  });
-}
 
 function merge(files: string[], cwd: string, out = 'm.json') {
   const r = spawnSync(process.execPath, [BIN, 'merge', ...files, '--out', out], { cwd, encoding: 'utf8' });

@@ -1,10 +1,10 @@
+import { BIN } from '../support/cli.js';
 import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
-const BIN = join(import.meta.dirname, '..', '..', 'bin', 'overcheck.js');
 
 function progressOf(path: string): { words: Set<string>; iterations: number; nextStream: number } {
   const words = new Set<string>();

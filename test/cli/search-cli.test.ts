@@ -1,16 +1,12 @@
-import { spawn, spawnSync } from 'node:child_process';
+import { BIN, runCli as run } from '../support/cli.js';
+import { spawn } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
-const BIN = join(import.meta.dirname, '..', '..', 'bin', 'overcheck.js');
 const HGP = 'hgp:h1=(regular:n=40,col=3,row=4,seed=1)';
 
-function run(args: string[]) {
-  const r = spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8' });
-  return { code: r.status, out: r.stdout, err: r.stderr };
-}
 
 function wordsIn(path: string): { words: Set<string>; iterations: number } {
   const words = new Set<string>();

@@ -1,20 +1,12 @@
-import { spawn, spawnSync } from 'node:child_process';
+import { BIN, runCliAsync as runAsync } from '../support/cli.js';
+import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
-const BIN = join(import.meta.dirname, '..', '..', 'bin', 'overcheck.js');
 const BB = 'bb:l=12,m=6,A=x^3+y+y^2,B=y^3+x+x^2';
 
-function runAsync(args: string[], cwd: string): Promise<{ code: number | null; out: string }> {
-  return new Promise((resolve) => {
-    const c = spawn(process.execPath, [BIN, ...args], { cwd });
-    let out = '';
-    c.stdout.on('data', (d) => (out += d));
-    c.on('exit', (code) => resolve({ code, out }));
-  });
-}
 
 describe('sharding and merge', () => {
   it('4 shards run as separate processes and merged equal one run of the same total work and seed', async () => {

@@ -1,4 +1,5 @@
-import { spawn, spawnSync } from 'node:child_process';
+import { BIN, runCliAsync as runAsync } from '../support/cli.js';
+import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -7,18 +8,7 @@ import { buildFamily } from '../../src/codes/families/index.js';
 import { fromRowVectors, rowVector } from '../../src/gf2/bitmatrix.js';
 import { writeMatrixFile } from '../../src/formats/index.js';
 
-const BIN = join(import.meta.dirname, '..', '..', 'bin', 'overcheck.js');
 
-function runAsync(args: string[], cwd: string): Promise<{ code: number | null; out: string; err: string }> {
-  return new Promise((resolve) => {
-    const c = spawn(process.execPath, [BIN, ...args], { cwd });
-    let out = '';
-    let err = '';
-    c.stdout.on('data', (d) => (out += d));
-    c.stderr.on('data', (d) => (err += d));
-    c.on('exit', (code) => resolve({ code, out, err }));
-  });
-}
 
 function merge(files: string[], cwd: string) {
   return spawnSync(process.execPath, [BIN, 'merge', ...files, '--out', 'm.json'], { cwd, encoding: 'utf8' });

@@ -1,35 +1,15 @@
-import { spawn } from 'node:child_process';
+import { runCliAsync } from '../support/cli.js';
 import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { afterAll, describe, expect, it } from 'vitest';
 import { FormatError, InputError } from '../../src/errors.js';
 import { fromDense, toDense, zeros } from '../../src/gf2/index.js';
 import { type MatrixFormat, readMatrixFile, writeMatrixFile } from '../../src/formats/index.js';
 
-const BIN = fileURLToPath(new URL('../../bin/overcheck.js', import.meta.url));
 const dir = mkdtempSync(join(tmpdir(), 'overcheck-formats-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-interface Run {
-  code: number | null;
-  stdout: string;
-  stderr: string;
-}
-
-/** Run the built CLI (npm test builds dist before vitest). */
-function cli(...args: string[]): Promise<Run> {
-  return new Promise((resolve, reject) => {
-    const p = spawn(process.execPath, [BIN, ...args], { stdio: ['ignore', 'pipe', 'pipe'] });
-    let stdout = '';
-    let stderr = '';
-    p.stdout.on('data', (d: Buffer) => (stdout += d.toString()));
-    p.stderr.on('data', (d: Buffer) => (stderr += d.toString()));
-    p.on('error', reject);
-    p.on('close', (code) => resolve({ code, stdout, stderr }));
-  });
-}
 
 const FORMATS: readonly MatrixFormat[] = ['mtx', 'alist', 'dense', 'json'];
 
@@ -125,3 +105,9 @@ describe('CLI', () => {
     expect(readFileSync(join(dir, 't-mtx.hx.mtx'), 'utf8').split('\n')[0]).toBe('%%MatrixMarket matrix coordinate pattern general');
   });
 });
+
+/** The built CLI, with stdout/stderr under the names these tests use. */
+async function cli(...args: string[]): Promise<{ code: number | null; stdout: string; stderr: string }> {
+  const r = await runCliAsync(args);
+  return { code: r.code, stdout: r.out, stderr: r.err };
+}

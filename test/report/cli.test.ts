@@ -1,4 +1,4 @@
-import { spawn } from 'node:child_process';
+import { runCliAsync } from '../support/cli.js';
 import { createHash } from 'node:crypto';
 import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -6,22 +6,10 @@ import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { FormatError, InputError } from '../../src/errors.js';
 import { parseJsonText, readJsonFile } from '../../src/formats/json-file.js';
-import { BIN } from './fixture.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'overcheck-report-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-function cli(...args: string[]): Promise<{ code: number | null; stdout: string; stderr: string }> {
-  return new Promise((resolve, reject) => {
-    const p = spawn(process.execPath, [BIN, ...args], { stdio: ['ignore', 'pipe', 'pipe'] });
-    let stdout = '';
-    let stderr = '';
-    p.stdout.on('data', (d: Buffer) => (stdout += d.toString()));
-    p.stderr.on('data', (d: Buffer) => (stderr += d.toString()));
-    p.on('error', reject);
-    p.on('close', (code) => resolve({ code, stdout, stderr }));
-  });
-}
 
 function file(name: string, text: string): string {
   const path = join(dir, name);
@@ -108,3 +96,9 @@ describe('overcheck report', () => {
     expect(existsSync(out)).toBe(false);
   });
 });
+
+/** The built CLI, with stdout/stderr under the names these tests use. */
+async function cli(...args: string[]): Promise<{ code: number | null; stdout: string; stderr: string }> {
+  const r = await runCliAsync(args);
+  return { code: r.code, stdout: r.out, stderr: r.err };
+}

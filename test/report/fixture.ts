@@ -7,9 +7,9 @@
  * exception: computed here by brute force from the real rows of HX and HZ.
  */
 import { execFileSync } from 'node:child_process';
-import { fileURLToPath } from 'node:url';
+import { BIN } from '../support/cli.js';
 
-export const BIN = fileURLToPath(new URL('../../bin/overcheck.js', import.meta.url));
+export { BIN };
 export const FAMILY = 'gb:l=24,a=1+x^2+x^8+x^15,b=1+x^2+x^12+x^17';
 
 function cliJson(...args: string[]): unknown {
