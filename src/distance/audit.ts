@@ -20,7 +20,7 @@ import { logicalBasis } from '../codes/logicals.js';
 import { packedSupport } from '../gf2/bitmatrix.js';
 import { EnumerationSchedule, type EnumerationGoal, goalMet, planEnumeration, remainingCost } from './brouwer-zimmermann.js';
 import { runEnumerationPhase, runExhaustivePhase } from './certify.js';
-import { cssSideProblem, type DistanceProblem, type Side } from './problem.js';
+import { cssSideProblem, type DistanceProblem, type Side, verifiedMinimum } from './problem.js';
 import { type AuditReportSettings, combineSides, type DistanceReport, type SideReport, type SideStop } from './result.js';
 import { type IsdStage, isdCode, rangeMiss, runInformationSetPhase } from './upper.js';
 import { WordCollection } from './words.js';
@@ -213,14 +213,7 @@ interface Finish {
 
 /** Verify every minimum-weight word found (independently of the filter) and assemble the side report. */
 function finish(problem: DistanceProblem, collection: WordCollection, f: Finish): SideReport {
-  const U = collection.lightest();
-  const minimum = collection.sorted().filter((w) => w.weight === U);
-  let partner: number | null = null;
-  minimum.forEach((w, i) => {
-    const v = problem.verify(w.word);
-    if (!v.ok) throw new Error(`${problem.key}: a reported word of weight ${U} failed re-verification: ${v.reason}`);
-    if (i === 0) partner = v.partner;
-  });
+  const { upper: U, minimum, partner } = verifiedMinimum(problem, collection);
   const certified = f.lower >= U;
   const iterations = f.isd.stages.reduce((a, st) => a + st.iterations, 0);
   const miss = certified ? 0 : iterations > 0 ? f.isd.miss(f.lower, U - 1) : 1;

@@ -35,7 +35,7 @@ import {
   AUTO_EXHAUSTIVE_DIM, DEFAULT_ENUMERATION_LIMIT, DEFAULT_MAX_WORDS, DEFAULT_TARGET_MISS, EXHAUSTIVE_MAX_DIM, FREE_ENUMERATION,
   WARMUP_TARGET_MISS,
 } from './defaults.js';
-import type { DistanceProblem } from './problem.js';
+import { type DistanceProblem, verifiedMinimum } from './problem.js';
 import type { SideReport } from './result.js';
 import { chunksBelow, type FixedPlan, type FixedPlanUnit, type ShardPart, type ShardSideRecord, sideFromRecord } from './shard-record.js';
 import { CHUNK_MAX_WORDS, isdCode, type IsdCode, planFixedIsd, rangeMiss } from './upper.js';
@@ -231,14 +231,7 @@ export async function auditSideFixed(pool: TaskPool, problem: DistanceProblem, s
   }
 
   // the record: verify every minimum-weight word kept, as the adaptive run does before printing
-  const U = collection.lightest();
-  const minimum = collection.sorted().filter((w) => w.weight === U);
-  let partner: number | null = null;
-  minimum.forEach((w, i) => {
-    const v = problem.verify(w.word);
-    if (!v.ok) throw new Error(`${problem.key}: a reported word of weight ${U} failed re-verification: ${v.reason}`);
-    if (i === 0) partner = v.partner;
-  });
+  const { upper: U, minimum, partner } = verifiedMinimum(problem, collection);
   const part: ShardPart = { index: I, exhaustiveChunks, isdChunks, enumerationChunks, iterations, combinations, visited, overflow, stoppedBy };
   const record: ShardSideRecord = {
     count: N,

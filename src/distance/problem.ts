@@ -12,6 +12,7 @@ import { RowSpaceSolver } from '../gf2/solve.js';
 import type { CssCode } from '../codes/css.js';
 import type { LogicalBasis } from '../codes/logicals.js';
 import { type AugmentedBasis, augmentedBasis } from './augmented.js';
+import type { WordCollection } from './words.js';
 
 export type Side = 'x' | 'z';
 
@@ -101,4 +102,20 @@ export function classicalGeneratorProblem(g: BitMatrix): DistanceProblem {
 
 function knownRows(b: AugmentedBasis): Uint32Array[] {
   return Array.from({ length: b.dim }, (_, i) => b.rows.slice(i * b.rowWords, i * b.rowWords + b.codeWords));
+}
+
+/**
+ * The lightest words of a collection, each re-verified against the problem independently of the filter that
+ * found it (an internal error if one fails), and the logical the first one anticommutes with.
+ */
+export function verifiedMinimum(problem: DistanceProblem, collection: WordCollection): { upper: number; minimum: ReturnType<WordCollection['sorted']>; partner: number | null } {
+  const upper = collection.lightest();
+  const minimum = collection.sorted().filter((w) => w.weight === upper);
+  let partner: number | null = null;
+  minimum.forEach((w, i) => {
+    const v = problem.verify(w.word);
+    if (!v.ok) throw new Error(`${problem.key}: a reported word of weight ${upper} failed re-verification: ${v.reason}`);
+    if (i === 0) partner = v.partner;
+  });
+  return { upper, minimum, partner };
 }
