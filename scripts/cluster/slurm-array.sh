@@ -13,8 +13,10 @@
 # shots and failures, recomputed counts, bounds, miss probabilities, rates and intervals.
 # Search shards also stream their words to their own --out file: a search shard that was killed (time limit,
 # pre-emption) can be rerun with --resume shard-I.jsonl (without --shard) to finish it. A distance or trial
-# shard stopped by SIGTERM prints the part it finished (exit 130); rerun it, or merge with afterany to see
-# what the finished part proves (the merged result says which work is missing).
+# shard journals every finished chunk or batch to shard-I.journal.jsonl (--checkpoint), so the same command
+# run again (Slurm's --requeue after a pre-emption, or `scontrol requeue`) replays the journal and finishes
+# with exactly its uninterrupted result. A shard stopped for good by SIGTERM prints the part it finished
+# (exit 130); merge with afterany to see what the finished part proves (the merged result says what is missing).
 #
 # Environment (all optional except SPEC):
 #   COMMAND     search, distance or trial (default search)
@@ -65,11 +67,14 @@ case "$COMMAND" in
     WORK+=("--side" "$SIDE" "--method" "${METHOD:-isd}")
     [ -n "${ITERATIONS:-}" ] && WORK+=("--iterations" "$ITERATIONS")
     [ -n "${TARGET:-}" ] && WORK+=("--target-miss" "$TARGET")
+    # a requeued or rerun shard replays its journal and carries on (exactly where it stopped)
+    OUT_ARGS="--checkpoint '$OUTDIR'/shard-\$SLURM_ARRAY_TASK_ID.journal.jsonl"
     ;;
   trial)
     : "${P:?set P to the physical error rates, e.g. P=0.001,0.002}"
     WORK+=("--p" "$P" "--shots" "${SHOTS:-100000}" "--batch" "${BATCH:-256}")
     [ -n "${FAILURES:-}" ] && WORK+=("--failures" "$FAILURES")
+    OUT_ARGS="--checkpoint '$OUTDIR'/shard-\$SLURM_ARRAY_TASK_ID.journal.jsonl"
     ;;
   *)
     echo "COMMAND must be search, distance or trial, not '$COMMAND'" >&2
@@ -77,7 +82,8 @@ case "$COMMAND" in
     ;;
 esac
 
-array_id=$(sbatch --parsable --array="0-$((SHARDS - 1))" --cpus-per-task="$CPUS" --time="$TIME" \
+# --requeue: a preempted shard runs again and continues from its words file or journal
+array_id=$(sbatch --parsable --requeue --array="0-$((SHARDS - 1))" --cpus-per-task="$CPUS" --time="$TIME" \
   --job-name="overcheck-$COMMAND" --output="$OUTDIR/shard-%a.log" --wrap="cd '$HERE' && \
   node bin/overcheck.js $COMMAND $CODE_ARGS ${WORK[*]} ${EXTRA:-} --shard \$SLURM_ARRAY_TASK_ID/$SHARDS \
     $OUT_ARGS --json > '$OUTDIR'/shard-\$SLURM_ARRAY_TASK_ID.json")

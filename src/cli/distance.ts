@@ -5,7 +5,10 @@ import { DEFAULT_SEED } from '../parallel/seeds.js';
 import { choiceOption, codeOptions, floatOption, intOption, loadCodeInput, printJson, type CodeOptions } from './input.js';
 import { EXIT_NO, ExitWith } from './main.js';
 import { startRun } from './run-control.js';
-import { parseShard } from './search.js';
+import { type CommandJournal, defaultJournalPath, journalLines, openJournal, resumeMessage } from './journal.js';
+import { formatSize, parseShard, parseSize } from './search.js';
+import { freemem } from 'node:os';
+import { wordCapFor } from '../distance/words.js';
 import { matrixHash } from '../codes/hash.js';
 import type { AuditProgress } from '../distance/audit.js';
 import type { DistanceReport } from '../distance/result.js';
@@ -24,6 +27,9 @@ interface DistanceOptions extends CodeOptions {
   json?: boolean;
   progress?: boolean;
   shard?: string;
+  checkpoint?: string;
+  resume?: string;
+  maxMemory?: string;
 }
 
 export function registerDistance(program: Command): void {
@@ -38,7 +44,10 @@ export function registerDistance(program: Command): void {
     .option('--target-miss <p>', 'stop the information-set search once the miss probability is below p (default 1e-6)')
     .option('--enumeration-limit <n>', 'largest certifying enumeration auto plans for, in combinations (default 1e9)')
     .option('--max-words <n>', 'most minimum-weight words kept per side (default 200000); beyond it the count is a lower bound')
+    .option('--max-memory <size>', 'approximate memory for the kept minimum-weight words, e.g. 512M or 4G (default: a quarter of the free memory); lowers --max-words to fit')
     .option('--shard <i/n>', 'run shard I of N (0-based) of a fixed plan: a disjoint share of its chunks; combine with merge')
+    .option('--checkpoint <file>', 'journal every finished chunk to FILE as it completes (continue a stopped audit with --resume FILE)')
+    .option('--resume <file>', 'replay the finished chunks journalled in FILE and carry on (same result as one uninterrupted audit); goes on writing to FILE')
     .option('--progress', 'progress on stderr even when it is not a terminal')
     .option('--json', 'print one JSON object')
     .action(async (o: DistanceOptions) => {
@@ -52,7 +61,8 @@ export function registerDistance(program: Command): void {
       const iterations = o.iterations === undefined ? undefined : intOption('iterations', o.iterations, 0, 0);
       const targetMiss = o.targetMiss === undefined ? undefined : floatOption('target-miss', o.targetMiss, 0, 0, 1);
       const enumerationLimit = floatOption('enumeration-limit', o.enumerationLimit, DEFAULT_ENUMERATION_LIMIT, 0);
-      const maxWords = intOption('max-words', o.maxWords, DEFAULT_MAX_WORDS, 1);
+      const askedWords = intOption('max-words', o.maxWords, DEFAULT_MAX_WORDS, 1);
+      const maxMemory = parseSize(o.maxMemory) ?? Math.floor(freemem() / 4);
       const shard = parseShard(o.shard);
 
       let input: Parameters<typeof auditDistance>[1];
@@ -77,8 +87,21 @@ export function registerDistance(program: Command): void {
         }
       }
 
+      const n = input.kind === 'css' ? input.code.n : input.problem.n;
+      const maxWords = wordCapFor(n, askedWords, maxMemory);
+      if (maxWords < askedWords && (o.maxWords !== undefined || o.maxMemory !== undefined)) {
+        process.stderr.write(`overcheck: note: --max-memory ${formatSize(maxMemory)} holds about ${maxWords} minimum-weight words of length ${n}; keeping at most that many (not ${askedWords})\n`);
+      }
       const started = Date.now();
-      const control = await startRun({ workers: o.workers, timeLimit: o.timeLimit, progress: o.progress, what: 'distance' });
+      const journalPath = o.resume ?? o.checkpoint ?? defaultJournalPath('distance');
+      const control = await startRun({ workers: o.workers, timeLimit: o.timeLimit, progress: o.progress, what: 'distance', resumeHint: journalPath });
+      let journal: CommandJournal;
+      try {
+        journal = openJournal(control.pool, 'distance', o);
+      } catch (e) {
+        await control.close();
+        throw e;
+      }
       const show = o.progress === true || process.stderr.isTTY === true;
       const tty = process.stderr.isTTY === true;
       let lastShown = 0;
@@ -99,9 +122,10 @@ export function registerDistance(program: Command): void {
         shown = true;
       };
       let interrupted = false;
+      let saved: string | null = null;
       let report: DistanceReport & { codeHash?: Record<string, string> };
       try {
-        report = await auditDistance(control.pool, input, { method, seed, iterations, targetMiss, enumerationLimit, maxWords, ...(shard ? { shard } : {}) }, {
+        report = await auditDistance(journal.pool, input, { method, seed, iterations, targetMiss, enumerationLimit, maxWords, ...(shard ? { shard } : {}) }, {
           shouldStop: control.shouldStop,
           stopReason: () => {
             if ((Date.now() - started) / 1000 >= timeLimit) return 'time-limit';
@@ -113,10 +137,17 @@ export function registerDistance(program: Command): void {
       } finally {
         if (shown && tty) process.stderr.write('\n');
         await control.close();
+        saved = journal.finish(control.stopCause() === 'interrupted');
       }
-      report = { ...report, codeHash };
+      const timedOut = (report.kind === 'classical' ? [report.d] : [report.dx, report.dz]).some((x) => x?.stoppedBy === 'time-limit');
+      if (saved !== null && (interrupted || timedOut)) process.stderr.write(resumeMessage('distance', saved, interrupted ? 'interrupted' : 'stopped at --time-limit'));
+      const js = journal.summary();
+      report = { ...report, codeHash, ...(js.file !== null ? { journal: js } : {}) };
       if (o.json) printJson(report);
-      else process.stdout.write(formatDistanceText(report) + `elapsed ${((Date.now() - started) / 1000).toFixed(2)} s\n`);
+      else process.stdout.write(formatDistanceText(report) + journalLines(journal).map((l) => `${l}\n`).join('') + `elapsed ${((Date.now() - started) / 1000).toFixed(2)} s\n`);
+      for (const [name, side] of report.kind === 'classical' ? [['d', report.d] as const] : ([['dX', report.dx], ['dZ', report.dz]] as const)) {
+        if (side?.truncated) process.stderr.write(`overcheck: ${name}: stopped keeping minimum-weight words at ${side.count} (the --max-words ${maxWords} / --max-memory ${formatSize(maxMemory)} limit); the count is a lower bound\n`);
+      }
       if (interrupted) throw new ExitWith(130);
       // a shard alone rarely certifies: the check is for the merged result (exit 0 so that job arrays go on)
       if (method === 'certify' && !(shard && shard.count > 1)) {

@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, readFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, renameSync, rmSync } from 'node:fs';
 import { dirname, isAbsolute, join, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { summarizeCode, type CssCode } from '../codes/css.js';
@@ -10,6 +10,8 @@ import { InputError } from '../errors.js';
 import { readJsonFile, writeTextFileAtomic } from '../formats/json-file.js';
 import { writeJsonFile } from '../formats/json-out.js';
 import { readWordsFile } from '../formats/words-file.js';
+import { JournalFile } from '../formats/journal-file.js';
+import { JournalPool } from '../parallel/journal-pool.js';
 import { parseRunConfig, type RunConfig } from '../pipeline/config.js';
 import { VERSION } from '../version.js';
 import { runConditioning } from './condition.js';
@@ -78,6 +80,7 @@ export function registerRun(program: Command): void {
       const rel = (p: string) => (isAbsolute(p) ? p : join(base, p));
       const dir = o.out;
       mkdirSync(dir, { recursive: true });
+      if (o.fresh) for (const stage of ['distance', 'trial']) rmSync(join(dir, `${stage}.journal.jsonl`), { force: true });
       const configHash = createHash('sha256').update(JSON.stringify(config)).digest('hex');
       const ck = new Checkpoints(join(dir, 'state.json'), configHash, o.fresh === true);
       const say = (msg: string) => process.stderr.write(`${msg}\n`);
@@ -148,12 +151,14 @@ export function registerRun(program: Command): void {
           } else {
             const { auditDistance } = await import('../distance/audit.js');
             const dc = stageControl(control, config.distance.timeLimit);
+            const journal = stageJournal(control, dir, 'distance', say);
             const report = await auditDistance(
-              control.pool,
+              journal.pool,
               { kind: 'css', code: input.code, label: input.label, side: 'both' },
               { method: config.distance.method, seed: String(config.seed), targetMiss: config.distance.targetMiss },
               { shouldStop: dc.shouldStop, stopReason: () => (dc.stopCause() === 'interrupted' ? 'interrupted' : 'time-limit') },
-            );
+            ).finally(() => journal.close());
+            if (journal.reused > 0) say(`distance: ${journal.reused} finished chunks replayed from ${journal.path}`);
             if (control.stopCause() === 'interrupted') {
               interrupted = true;
               return;
@@ -202,7 +207,9 @@ export function registerRun(program: Command): void {
             trial = ck.get('trial');
             say('trial: reusing the saved result');
           } else {
-            trial = await trialStage(config, input.code, conditioned, control);
+            const journal = stageJournal(control, dir, 'trial', say);
+            trial = await trialStage(config, input.code, conditioned, { ...control, pool: journal.pool }).finally(() => journal.close());
+            if (journal.reused > 0) say(`trial: ${journal.reused} finished batches replayed from ${journal.path}`);
             if (control.stopCause() === 'interrupted') {
               interrupted = true;
               return;
@@ -244,6 +251,34 @@ export function registerRun(program: Command): void {
         }
       }
     });
+}
+
+/**
+ * The results journal of a stage (DIR/STAGE.journal.jsonl): a rerun replays the stage's finished tasks and
+ * carries on, so an interrupted distance or trial stage loses nothing (see src/parallel/journal-pool.ts).
+ * Entries are keyed by task content, so a journal left by another configuration is harmless; one that
+ * cannot be read is set aside.
+ */
+function stageJournal(control: RunControl, dir: string, stage: 'distance' | 'trial', say: (m: string) => void): { pool: JournalPool; path: string; reused: number; close(): void } {
+  const path = join(dir, `${stage}.journal.jsonl`);
+  let file: JournalFile;
+  try {
+    file = new JournalFile(path, stage, false);
+  } catch (e) {
+    if (!(e instanceof InputError)) throw e;
+    say(`${stage}: ${e.message}; the journal is set aside as ${path}.damaged and the stage starts afresh`);
+    renameSync(path, `${path}.damaged`);
+    file = new JournalFile(path, stage, false);
+  }
+  const pool = new JournalPool(control.pool, file);
+  return {
+    pool,
+    path,
+    get reused() {
+      return pool.reused;
+    },
+    close: () => file.close(),
+  };
 }
 
 /** The saved words file, when it holds a search that can be resumed; a damaged one is set aside. */
@@ -311,7 +346,7 @@ async function trialStage(config: RunConfig, code: CssCode, conditioned: { hx: B
     batch: 256,
     seed: String(config.seed),
   });
-  const hooks = { now: () => performance.now() };
+  const hooks = { now: () => performance.now(), shouldStop: control.shouldStop };
   const a = await runTrial(plan(`(${t.iterationsOriginal} it)`, t.iterationsOriginal, false), control.pool, hooks);
   const b = await runTrial(plan(`(${t.iterationsConditioned} it)`, t.iterationsConditioned, true), control.pool, hooks);
   return { ...b, points: [...a.points, ...b.points], comparisons: [...a.comparisons, ...b.comparisons], iterations: { original: t.iterationsOriginal, conditioned: t.iterationsConditioned } };

@@ -17,6 +17,7 @@ import { choiceOption, codeOptions, floatOption, intOption, loadCodeInput, print
 import { parseShard } from './search.js';
 import { ExitWith } from './main.js';
 import { startRun } from './run-control.js';
+import { type CommandJournal, defaultJournalPath, journalLines, openJournal, resumeMessage } from './journal.js';
 
 interface TrialOptions extends CodeOptions {
   withX?: string;
@@ -41,6 +42,9 @@ interface TrialOptions extends CodeOptions {
   seed?: string;
   workers?: string;
   shard?: string;
+  checkpoint?: string;
+  resume?: string;
+  progress?: boolean;
   json?: boolean;
 }
 
@@ -110,6 +114,9 @@ export function registerTrial(program: Command): void {
     .option('--seed <seed>', `random seed (default ${DEFAULT_SEED})`)
     .option('--workers <n>', 'worker threads (default: all cores); results do not depend on it')
     .option('--shard <i/n>', 'decode only the batches ≡ I (mod N) of every point (0-based); combine the N results with merge')
+    .option('--checkpoint <file>', 'journal every finished batch to FILE as it completes (continue a stopped run with --resume FILE)')
+    .option('--resume <file>', 'replay the finished batches journalled in FILE and carry on (same result as one uninterrupted run); goes on writing to FILE')
+    .option('--progress', 'progress on stderr even when it is not a terminal (a line a second)')
     .option('--json', 'print one JSON object')
     .action(async (o: TrialOptions) => {
       const input = requireCss(loadCodeInput(o), 'trial');
@@ -173,30 +180,43 @@ export function registerTrial(program: Command): void {
       }
       const workers = intOption('workers', o.workers, defaultWorkers(), 0);
       // SIGINT/SIGTERM: finish the batches in flight, print what was decoded (points marked interrupted), exit 130
-      const control = await startRun({ workers: String(workers <= 1 ? 0 : workers), what: 'trial' });
-      const pool = control.pool;
+      const journalPath = o.resume ?? o.checkpoint ?? defaultJournalPath('trial');
+      const control = await startRun({ workers: String(workers <= 1 ? 0 : workers), what: 'trial', resumeHint: journalPath });
+      let journal: CommandJournal;
+      try {
+        journal = openJournal(control.pool, 'trial', o);
+      } catch (e) {
+        await control.close();
+        throw e;
+      }
+      const pool = journal.pool;
       const tty = process.stderr.isTTY === true;
       let lastProgress = 0;
       let result;
+      let saved: string | null = null;
       try {
         result = await runTrial(plan, pool, {
           now: () => performance.now(),
           shouldStop: control.shouldStop,
-          onProgress: tty
+          onProgress: tty || o.progress
             ? (p, _pi, counts, shots) => {
                 const t = performance.now();
-                if (t - lastProgress < 200) return;
+                if (t - lastProgress < (tty ? 200 : 1000)) return;
                 lastProgress = t;
                 const c = counts[0]!;
-                process.stderr.write(`\rp=${p}  shots ${c.shots}/${shots}  failures ${counts.map((x) => x.failures).join('/')}  rate ${formatRate(c.shots ? c.failures / c.shots : 0)}   `);
+                const line = `p=${p}  shots ${c.shots}/${shots}  failures ${counts.map((x) => x.failures).join('/')}  rate ${formatRate(c.shots ? c.failures / c.shots : 0)}`;
+                process.stderr.write(tty ? `\r${line}   ` : `${line}\n`);
               }
             : undefined,
         });
       } finally {
         await control.close();
         if (tty) process.stderr.write('\r\x1b[K');
+        saved = journal.finish(control.stopCause() === 'interrupted');
       }
       const interrupted = result.points.some((p) => p.stoppedBy === 'interrupted');
+      const timedOut = result.points.some((p) => p.stoppedBy === 'time');
+      if (saved !== null && (interrupted || timedOut)) process.stderr.write(resumeMessage('trial', saved, interrupted ? 'interrupted' : 'stopped at --time-limit'));
       const summary = summarizeCode(input.code);
       if (o.json) {
         printJson({
@@ -205,6 +225,7 @@ export function registerTrial(program: Command): void {
           codeHash: { hx: matrixHash(input.code.hx), hz: matrixHash(input.code.hz) },
           matrices: matrices.map((m) => ({ label: m.label, xRows: m.dx.rows, zRows: m.dz.rows, spansX: m.spansX, spansZ: m.spansZ, xHash: matrixHash(m.dx), zHash: matrixHash(m.dz) })),
           workers: pool.workers,
+          ...(journal.summary().file !== null ? { journal: journal.summary() } : {}),
         });
         if (interrupted) throw new ExitWith(130);
         return;
@@ -217,6 +238,7 @@ export function registerTrial(program: Command): void {
           `decoder  ${kind} ${rule}${decoder.scale !== 1 ? ` scale ${decoder.scale}` : ''}, ${decoder.schedule}, ${decoder.iterations} iterations${decoder.earlyStop ? ' (early stop)' : ''}, ${osd}`,
           `errors   ${mode}`,
           ...matrices.map((m) => `matrix   ${m.label}: ${m.dx.rows} X-checks, ${m.dz.rows} Z-checks`),
+          ...journalLines(journal),
         ]),
       );
       if (interrupted) throw new ExitWith(130);

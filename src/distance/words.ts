@@ -92,3 +92,17 @@ export function compareSupports(a: readonly number[], b: readonly number[]): num
   for (let i = 0; i < m; i++) if (a[i] !== b[i]) return a[i]! - b[i]!;
   return a.length - b.length;
 }
+
+/**
+ * Approximate memory one kept word takes in a WordCollection of length-n words (the packed copy, its key
+ * string and the map entry), for turning a memory limit into a word cap. An estimate, on the high side.
+ */
+export function collectionWordBytes(n: number): number {
+  const stride = (n + 31) >>> 5;
+  return 200 + 4 * stride + 16 * stride;
+}
+
+/** The word cap a memory limit allows, never above `maxWords`. */
+export function wordCapFor(n: number, maxWords: number, maxMemory: number): number {
+  return Math.max(1, Math.min(maxWords, Math.floor(maxMemory / collectionWordBytes(n))));
+}

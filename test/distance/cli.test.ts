@@ -143,4 +143,22 @@ describe('overcheck distance', () => {
     const both = JSON.parse((await run('--family', BB90, '--method', 'isd', '--target-miss', '0.01', '--json', '--workers', '0')).out);
     expect(both.dz).toEqual(j.dz);
   }, 60_000);
+
+  it('--max-memory caps the kept minimum-weight words: the count becomes a lower bound, and the cap is said', async () => {
+    const gb48 = 'gb:l=24,a=1+x^2+x^8+x^15,b=1+x^2+x^12+x^17'; // [[48,6,8]] source: Panteleev & Kalachev, Quantum 5, 585 (2021)
+    const full = JSON.parse((await run('--family', gb48, '--side', 'x', '--method', 'certify', '--json', '--workers', '0')).out);
+    expect(full.dx.countExact).toBe(true);
+    const r = await run('--family', gb48, '--side', 'x', '--method', 'certify', '--max-memory', '20K', '--json', '--workers', '0');
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.dx.upper).toBe(8);
+    expect(j.dx.certified).toBe(true);
+    expect(j.dx.truncated).toBe(true);
+    expect(j.dx.countExact).toBe(false);
+    expect(j.dx.count).toBe(j.settings.maxWords);
+    expect(j.dx.count).toBeLessThan(full.dx.count);
+    expect(r.err).toMatch(/--max-memory 20K holds about \d+ minimum-weight words/);
+    expect(r.err).toMatch(/the count is a lower bound/);
+    expect((await run('--family', gb48, '--max-memory', 'lots')).err).toMatch(/--max-memory: expected a size/);
+  }, 60_000);
 });
