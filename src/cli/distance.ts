@@ -46,7 +46,7 @@ export function registerDistance(program: Command): void {
     .option('--max-words <n>', 'most minimum-weight words kept per side (default 200000); beyond it the count is a lower bound')
     .option('--max-memory <size>', 'approximate memory for the kept minimum-weight words, e.g. 512M or 4G (default: a quarter of the free memory); lowers --max-words to fit')
     .option('--shard <i/n>', 'run shard I of N (0-based) of a fixed plan: a disjoint share of its chunks; combine with merge')
-    .option('--checkpoint <file>', 'journal every finished chunk to FILE as it completes (continue a stopped audit with --resume FILE)')
+    .option('--checkpoint <file>', 'journal every finished chunk to FILE as it completes; an existing FILE is replayed first, so rerunning the same command continues it')
     .option('--resume <file>', 'replay the finished chunks journalled in FILE and carry on (same result as one uninterrupted audit); goes on writing to FILE')
     .option('--progress', 'progress on stderr even when it is not a terminal')
     .option('--json', 'print one JSON object')
@@ -106,9 +106,21 @@ export function registerDistance(program: Command): void {
       const tty = process.stderr.isTTY === true;
       let lastShown = 0;
       let shown = false;
+      // --iterations with --time-limit: warn once when the information sets left cannot be done in time
+      let warned = iterations === undefined || !Number.isFinite(timeLimit);
+      const sidesLeft = (key: string) => (input.kind === 'css' && input.side === 'both' && key === 'dx' ? 1 : 0);
       const progress = (p: AuditProgress) => {
         const now = Date.now();
-        if (now - lastShown < 500) return;
+        const secs = (now - started) / 1000;
+        if (!warned && p.phase === 'isd' && secs >= 2 && p.iterations > 0) {
+          const left = iterations! - p.iterations + sidesLeft(p.key) * iterations!;
+          const need = left / (p.iterations / secs);
+          if (need > timeLimit - secs) {
+            warned = true;
+            process.stderr.write(`${shown && tty ? '\n' : ''}overcheck: warning: at the measured ${(p.iterations / secs).toFixed(0)} information sets/s the remaining ${left} take about ${need.toFixed(0)} s, more than the ${(timeLimit - secs).toFixed(0)} s left of --time-limit; the bounds will be those reached by then\n`);
+          }
+        }
+        if (!show || now - lastShown < 500) return;
         lastShown = now;
         const what =
           p.phase === 'isd'
@@ -132,7 +144,7 @@ export function registerDistance(program: Command): void {
             interrupted = true;
             return 'interrupted';
           },
-          ...(show ? { progress } : {}),
+          progress,
         });
       } finally {
         if (shown && tty) process.stderr.write('\n');

@@ -114,7 +114,7 @@ export function registerTrial(program: Command): void {
     .option('--seed <seed>', `random seed (default ${DEFAULT_SEED})`)
     .option('--workers <n>', 'worker threads (default: all cores); results do not depend on it')
     .option('--shard <i/n>', 'decode only the batches ≡ I (mod N) of every point (0-based); combine the N results with merge')
-    .option('--checkpoint <file>', 'journal every finished batch to FILE as it completes (continue a stopped run with --resume FILE)')
+    .option('--checkpoint <file>', 'journal every finished batch to FILE as it completes; an existing FILE is replayed first, so rerunning the same command continues it')
     .option('--resume <file>', 'replay the finished batches journalled in FILE and carry on (same result as one uninterrupted run); goes on writing to FILE')
     .option('--progress', 'progress on stderr even when it is not a terminal (a line a second)')
     .option('--json', 'print one JSON object')
@@ -194,20 +194,31 @@ export function registerTrial(program: Command): void {
       let lastProgress = 0;
       let result;
       let saved: string | null = null;
+      const t0 = performance.now();
+      // the time-limit warning: batches computed (not replayed) per second against the batches still to run
+      const totalBatches = plan.ps.length * Math.ceil(total / plan.batch / (plan.shard?.count ?? 1));
+      let warned = plan.timeLimit === null || plan.failures !== null;
       try {
         result = await runTrial(plan, pool, {
           now: () => performance.now(),
           shouldStop: control.shouldStop,
-          onProgress: tty || o.progress
-            ? (p, _pi, counts, shots) => {
-                const t = performance.now();
-                if (t - lastProgress < (tty ? 200 : 1000)) return;
-                lastProgress = t;
-                const c = counts[0]!;
-                const line = `p=${p}  shots ${c.shots}/${shots}  failures ${counts.map((x) => x.failures).join('/')}  rate ${formatRate(c.shots ? c.failures / c.shots : 0)}`;
-                process.stderr.write(tty ? `\r${line}   ` : `${line}\n`);
+          onProgress: (p, _pi, counts, shots) => {
+            const t = performance.now();
+            const secs = (t - t0) / 1000;
+            if (!warned && secs >= 2 && pool.computed > 0) {
+              const left = totalBatches - pool.computed - pool.reused;
+              const need = left / (pool.computed / secs);
+              if (need > plan.timeLimit! - secs) {
+                warned = true;
+                process.stderr.write(`\novercheck: warning: at the measured ${((pool.computed * plan.batch) / secs).toFixed(0)} shots/s the remaining ${left * plan.batch} shots take about ${need.toFixed(0)} s, more than the ${(plan.timeLimit! - secs).toFixed(0)} s left of --time-limit; points will stop early (stoppedBy "time")\n`);
               }
-            : undefined,
+            }
+            if (!(tty || o.progress) || t - lastProgress < (tty ? 200 : 1000)) return;
+            lastProgress = t;
+            const c = counts[0]!;
+            const line = `p=${p}  shots ${c.shots}/${shots}  failures ${counts.map((x) => x.failures).join('/')}  rate ${formatRate(c.shots ? c.failures / c.shots : 0)}`;
+            process.stderr.write(tty ? `\r${line}   ` : `${line}\n`);
+          },
         });
       } finally {
         await control.close();
