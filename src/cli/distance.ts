@@ -5,7 +5,7 @@ import { DEFAULT_SEED } from '../parallel/seeds.js';
 import { choiceOption, codeOptions, floatOption, intOption, loadCodeInput, printJson, type CodeOptions } from './input.js';
 import { EXIT_NO, ExitWith } from './main.js';
 import { startRun } from './run-control.js';
-import { type CommandJournal, defaultJournalPath, journalLines, openJournal, resumeMessage } from './journal.js';
+import { defaultJournalPath, journalForRun, journalLines, resumeMessage } from './journal.js';
 import { formatSize, parseShard, parseSize } from './search.js';
 import { freemem } from 'node:os';
 import { wordCapFor } from '../distance/words.js';
@@ -95,13 +95,7 @@ export function registerDistance(program: Command): void {
       const started = Date.now();
       const journalPath = o.resume ?? o.checkpoint ?? defaultJournalPath('distance');
       const control = await startRun({ workers: o.workers, timeLimit: o.timeLimit, progress: o.progress, what: 'distance', resumeHint: journalPath });
-      let journal: CommandJournal;
-      try {
-        journal = openJournal(control.pool, 'distance', o);
-      } catch (e) {
-        await control.close();
-        throw e;
-      }
+      const journal = await journalForRun(control, 'distance', o);
       const show = o.progress === true || process.stderr.isTTY === true;
       const tty = process.stderr.isTTY === true;
       let lastShown = 0;

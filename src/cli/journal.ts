@@ -2,6 +2,7 @@ import { InputError } from '../errors.js';
 import { JournalFile, writeJournal } from '../formats/journal-file.js';
 import { JournalPool, MemoryResultStore } from '../parallel/journal-pool.js';
 import type { TaskPool } from '../parallel/pool.js';
+import type { RunControl } from './run-control.js';
 
 /**
  * --checkpoint / --resume for the commands whose work runs as pool tasks (trial, distance): every finished
@@ -49,6 +50,16 @@ export function openJournal(pool: TaskPool, command: string, o: { checkpoint?: s
       return target;
     },
   };
+}
+
+/** openJournal on a run's pool; a journal that cannot be opened closes the run (its pool) before the error. */
+export async function journalForRun(control: RunControl, command: string, o: { checkpoint?: string; resume?: string }): Promise<CommandJournal> {
+  try {
+    return openJournal(control.pool, command, o);
+  } catch (e) {
+    await control.close();
+    throw e;
+  }
 }
 
 /** The closing line of a stopped run that can be continued. */

@@ -17,7 +17,7 @@ import { choiceOption, codeOptions, floatOption, intOption, loadCodeInput, print
 import { parseShard } from './search.js';
 import { ExitWith } from './main.js';
 import { startRun } from './run-control.js';
-import { type CommandJournal, defaultJournalPath, journalLines, openJournal, resumeMessage } from './journal.js';
+import { defaultJournalPath, journalForRun, journalLines, resumeMessage } from './journal.js';
 
 interface TrialOptions extends CodeOptions {
   withX?: string;
@@ -182,13 +182,7 @@ export function registerTrial(program: Command): void {
       // SIGINT/SIGTERM: finish the batches in flight, print what was decoded (points marked interrupted), exit 130
       const journalPath = o.resume ?? o.checkpoint ?? defaultJournalPath('trial');
       const control = await startRun({ workers: String(workers <= 1 ? 0 : workers), what: 'trial', resumeHint: journalPath });
-      let journal: CommandJournal;
-      try {
-        journal = openJournal(control.pool, 'trial', o);
-      } catch (e) {
-        await control.close();
-        throw e;
-      }
+      const journal = await journalForRun(control, 'trial', o);
       const pool = journal.pool;
       const tty = process.stderr.isTTY === true;
       let lastProgress = 0;
