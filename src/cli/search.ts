@@ -1,3 +1,4 @@
+import { existsSync } from 'node:fs';
 import { freemem } from 'node:os';
 import type { Command } from 'commander';
 import { type BitMatrix, packSupport, packedSupport } from '../gf2/bitmatrix.js';
@@ -196,14 +197,25 @@ export async function searchSides(sides: SearchSide[], o: SearchCliOptions, shar
     writer?.close();
     if (!shared) await control.close();
   }
-  if (outPath) {
+  // a signal without --out: the words are saved to a fresh file in the working directory all the same
+  const interrupted = results.some((r) => r.stopReason === 'interrupted');
+  const savePath = outPath ?? (interrupted ? freshPath('overcheck-search', '.words.jsonl') : undefined);
+  if (savePath) {
     // sides not run this time (interrupted before them) keep what the resumed file had
-    finalizeWordsFile(outPath, finalLines);
-    if (results.some((r) => r.stopReason === 'interrupted' || r.stopReason === 'time')) {
-      process.stderr.write(`overcheck: stopped (${results.some((r) => r.stopReason === 'time') ? 'time limit' : 'interrupted'}); words so far are in ${outPath}; continue with --resume ${outPath}\n`);
+    finalizeWordsFile(savePath, finalLines);
+    if (interrupted || results.some((r) => r.stopReason === 'time')) {
+      process.stderr.write(`overcheck: stopped (${interrupted ? 'interrupted' : 'time limit'}); words so far are in ${savePath}; continue with the same command and --resume ${savePath}\n`);
     }
   }
   return results;
+}
+
+/** PREFIX + SUFFIX in the working directory, or PREFIX-2 + SUFFIX, … when that exists. */
+function freshPath(prefix: string, suffix: string): string {
+  for (let i = 1; ; i++) {
+    const p = `${prefix}${i === 1 ? '' : `-${i}`}${suffix}`;
+    if (!existsSync(p)) return p;
+  }
 }
 
 /** Check that a resumed side matches this run, re-verify its words, and return what it contributes. */

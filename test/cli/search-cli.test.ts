@@ -1,5 +1,5 @@
 import { BIN, runCli as run } from '../support/cli.js';
-import { spawn } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -97,5 +97,26 @@ describe('search command', () => {
     const text = readFileSync(file, 'utf8');
     expect(text).toMatch(/"summary"/);
     expect(text).toMatch(/"stopReason":"interrupted"/);
+  }, 120_000);
+
+  it('SIGINT without --out saves the words in the working directory all the same, and --resume goes on from them', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'oc-search-'));
+    const args = ['search', '--family', HGP, '--side', 'x', '--max-weight', '10', '--method', 'isd', '--target-miss', '1e-30', '--workers', '1', '--progress'];
+    const child = spawn(process.execPath, [BIN, ...args], { cwd: dir, stdio: ['ignore', 'pipe', 'pipe'] });
+    let err = '';
+    child.stderr.on('data', (d) => (err += d));
+    await waitFor(() => /search x: \d+ iterations/.test(err), 60_000);
+    child.kill('SIGINT');
+    const code = await new Promise((r) => child.on('exit', r));
+    expect(code).toBe(130);
+    const saved = join(dir, 'overcheck-search.words.jsonl');
+    expect(err).toMatch(/--resume overcheck-search\.words\.jsonl/);
+    const before = wordsIn(saved);
+    expect(before.words.size).toBeGreaterThan(0);
+    const again = spawnSync(process.execPath, [BIN, ...args.slice(0, -1).map((a) => (a === '1e-30' ? '1e-3' : a)), '--resume', 'overcheck-search.words.jsonl', '--json'], { cwd: dir, encoding: 'utf8' });
+    expect(again.status).toBe(0);
+    const r = JSON.parse(again.stdout);
+    const after = new Set<string>(r.words.map((w: number[]) => w.join(',')));
+    for (const w of before.words) expect(after.has(w)).toBe(true);
   }, 120_000);
 });
