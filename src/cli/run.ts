@@ -91,6 +91,8 @@ export function registerRun(program: Command): void {
       const workers = o.workers ?? (config.workers === null ? undefined : String(config.workers));
       const control: RunControl = await startRun({ workers, progress: o.progress, what: 'run', resumeHint: dir });
       let interrupted = false;
+      // what a reader of the report should know about how the stages ended
+      const notes: string[] = [];
       try {
         const sides = config.sides === 'both' ? ['x', 'z'] : [config.sides];
         // 1. code summary
@@ -134,7 +136,10 @@ export function registerRun(program: Command): void {
             interrupted = true;
             return;
           }
-          if (results.some((r) => r.stopReason === 'time')) say(`search: stopped at search.timeLimit; the words found so far are used (rerun with a larger limit to continue from ${wordsFile})`);
+          if (results.some((r) => r.stopReason === 'time')) {
+            say(`search: stopped at search.timeLimit; the words found so far are used (rerun with a larger limit to continue from ${wordsFile})`);
+            notes.push('search: stopped at search.timeLimit; the word lists may be incomplete (see the miss probabilities)');
+          }
           ck.put('search', search);
           for (const r of results) say(`search ${r.side}: ${r.wordCount} words of weight ≤ ${r.maxWeight} (${r.method}, ${r.complete ? 'complete' : `miss probability ≤ ${Math.max(...Object.values(r.missProbability)).toExponential(1)}`})`);
         }
@@ -233,7 +238,7 @@ export function registerRun(program: Command): void {
           cycles,
           trial,
           provenance,
-          notes: [] as string[],
+          notes: [...notes, ...stageNotes(distance, trial)],
         };
         writeJsonFile(join(dir, 'run.json'), bundle);
         const { collectReport, renderReport } = await import('../report/index.js');
@@ -279,6 +284,19 @@ function stageJournal(control: RunControl, dir: string, stage: 'distance' | 'tri
     },
     close: () => file.close(),
   };
+}
+
+/** Notes on distance sides left uncertified and trial points cut short, from the stored stage results. */
+function stageNotes(distance: unknown, trial: unknown): string[] {
+  const out: string[] = [];
+  const d = distance as { dx?: { certified: boolean; stoppedBy: string }; dz?: { certified: boolean; stoppedBy: string } } | null;
+  for (const [name, side] of [['dX', d?.dx], ['dZ', d?.dz]] as const) {
+    if (side && !side.certified) out.push(`distance: ${name} is not certified (stopped by ${side.stoppedBy}); the bounds are those reached`);
+  }
+  const t = trial as { points?: { label: string; p: number; stoppedBy: string }[] } | null;
+  const short = (t?.points ?? []).filter((pt) => pt.stoppedBy === 'time');
+  if (short.length > 0) out.push(`trial: ${short.length} point${short.length > 1 ? 's' : ''} stopped at trial.timeLimit before the shot count (${short.map((pt) => `${pt.label} p=${pt.p}`).join(', ')})`);
+  return out;
 }
 
 /** The saved words file, when it holds a search that can be resumed; a damaged one is set aside. */

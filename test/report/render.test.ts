@@ -133,6 +133,16 @@ describe('partial inputs', () => {
     expect(m.notes).toEqual(['run.json: part "distance" is not a recognised distance result; skipped', 'run.json: parts not shown: extra']);
   });
 
+  it('a run bundle\'s version and configuration go to the provenance and its notes to the notes', () => {
+    const bundle = { kind: 'overcheck-run', version: '9.9.9', config: { file: 'c.json', sha256: 'ab'.repeat(32) }, notes: ['search stopped at its time limit'], info: fx.info };
+    const m = collectReport([{ file: 'run.json', value: bundle }], OPTIONS);
+    expect(m.notes).toEqual(['run.json: search stopped at its time limit']);
+    expect(m.provenance).toEqual(expect.arrayContaining([
+      { source: 'run.json', key: 'overcheck version', value: '9.9.9' },
+      { source: 'run.json', key: 'configuration', value: `c.json (SHA-256 ${'ab'.repeat(8)}…)` },
+    ]));
+  });
+
   it('trial points without p or rate are skipped and counted in a note', () => {
     const trial = { points: [{ label: 'a', p: 0.01, rate: 0.1, interval: [0.05, 0.2] }, { label: 'a', rate: 0.2 }, { label: 'a', p: 0.05 }, 'junk'] };
     const m = collectReport([{ file: 't.json', value: trial }], OPTIONS);

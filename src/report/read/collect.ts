@@ -132,7 +132,15 @@ class Collector {
     if (isObject(prov)) this.provenance.push(...readProvenance(prov, source));
     const seed = seedText(v['seed']);
     if (seed !== undefined) this.provenance.push({ source, key: 'seed', value: seed });
-    const known = new Set(['kind', 'label', 'name', 'seed', 'info', 'search', 'distance', 'cycles', 'trial', 'condition', 'provenance']);
+    const version = str(v['version']);
+    if (version !== undefined) this.provenance.push({ source, key: 'overcheck version', value: version });
+    const config = v['config'];
+    if (isObject(config) && str(config['file']) !== undefined) {
+      const sha = str(config['sha256']);
+      this.provenance.push({ source, key: 'configuration', value: `${str(config['file'])}${sha ? ` (SHA-256 ${sha.slice(0, 16)}…)` : ''}` });
+    }
+    if (Array.isArray(v['notes'])) for (const n of v['notes']) if (typeof n === 'string') this.notes.push(`${source}: ${n}`);
+    const known = new Set(['kind', 'label', 'name', 'seed', 'info', 'search', 'distance', 'cycles', 'trial', 'condition', 'provenance', 'version', 'config', 'notes']);
     const extra = Object.keys(v).filter((k) => !known.has(k));
     if (extra.length > 0) this.notes.push(`${source}: parts not shown: ${extra.join(', ')}`);
   }
