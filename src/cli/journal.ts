@@ -13,7 +13,7 @@ import type { RunControl } from './run-control.js';
  */
 export interface CommandJournal {
   readonly pool: JournalPool;
-  /** The journal file being written, or where an interrupted run will save (null before a stop). */
+  /** The journal file being written, or where an interrupted run without one will save. */
   readonly path: string;
   /** For --json output and the text report. */
   summary(): { file: string | null; reused: number; computed: number; loaded: number };
@@ -46,7 +46,13 @@ export function openJournal(pool: TaskPool, command: string, o: { checkpoint?: s
       }
       if (!interrupted || memory!.size === 0) return null;
       if (memory!.full) process.stderr.write(`overcheck: only the first ${memory!.size} finished tasks were kept in memory; use --checkpoint FILE on long runs to keep them all\n`);
-      writeJournal(target, command, memory!.entries);
+      try {
+        writeJournal(target, command, memory!.entries);
+      } catch (e) {
+        // the partial result is still printed; only the chance to resume is lost
+        process.stderr.write(`overcheck: could not save the finished work: ${(e as Error).message}\n`);
+        return null;
+      }
       return target;
     },
   };

@@ -17,6 +17,7 @@ import { choiceOption, codeOptions, floatOption, intOption, loadCodeInput, print
 import { parseShard } from './search.js';
 import { ExitWith } from './main.js';
 import { startRun } from './run-control.js';
+import { shardBatchCount } from '../decode/trial-shard.js';
 import { defaultJournalPath, journalForRun, journalLines, resumeMessage } from './journal.js';
 
 interface TrialOptions extends CodeOptions {
@@ -190,7 +191,7 @@ export function registerTrial(program: Command): void {
       let saved: string | null = null;
       const t0 = performance.now();
       // the time-limit warning: batches computed (not replayed) per second against the batches still to run
-      const totalBatches = plan.ps.length * Math.ceil(total / plan.batch / (plan.shard?.count ?? 1));
+      const totalBatches = plan.ps.length * shardBatchCount(Math.ceil(total / plan.batch), plan.shard?.index ?? 0, plan.shard?.count ?? 1);
       let warned = plan.timeLimit === null || plan.failures !== null;
       try {
         result = await runTrial(plan, pool, {
