@@ -249,7 +249,9 @@ export function parseSize(text: string | undefined): number | undefined {
   const m = /^(\d+(?:\.\d+)?)\s*([KMGT]?)B?$/i.exec(text.trim());
   if (!m) throw new InputError(`--max-memory: expected a size such as 512M or 4G, found "${text}"`);
   const mult = { '': 1, K: 2 ** 10, M: 2 ** 20, G: 2 ** 30, T: 2 ** 40 }[m[2]!.toUpperCase() as '' | 'K' | 'M' | 'G' | 'T'];
-  return Math.floor(Number(m[1]) * mult);
+  const bytes = Math.floor(Number(m[1]) * mult);
+  if (bytes < 1024) throw new InputError(`--max-memory: ${text} is too small (at least 1K)`);
+  return bytes;
 }
 
 export function formatSize(bytes: number): string {

@@ -119,4 +119,18 @@ describe('search command', () => {
     const after = new Set<string>(r.words.map((w: number[]) => w.join(',')));
     for (const w of before.words) expect(after.has(w)).toBe(true);
   }, 120_000);
+
+  it('--max-memory stops the word store before it outgrows the limit, says so, and the result is marked incomplete', () => {
+    const lantern = 'gb:l=21,a=1+x+x^5,b=1+x^6+x^11'; // demo code; 546 words of weight ≤ 10 per side by exhaustive search
+    const full = JSON.parse(run(['search', '--family', lantern, '--side', 'x', '--max-weight', '10', '--json']).out);
+    expect(full.complete).toBe(true);
+    const r = run(['search', '--family', lantern, '--side', 'x', '--max-weight', '10', '--max-memory', '16K', '--json']);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.truncated).toBe(true);
+    expect(j.complete).toBe(false);
+    expect(j.wordCount).toBeLessThan(full.wordCount);
+    expect(r.err).toMatch(/stopped at \d+ words, the --max-words 2000000 \/ --max-memory 16K limit for the word store/);
+    expect(run(['search', '--family', lantern, '--side', 'x', '--max-memory', '0']).err).toMatch(/--max-memory: 0 is too small/);
+  });
 });
