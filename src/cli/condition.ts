@@ -5,7 +5,7 @@ import { matrixHash } from '../codes/hash.js';
 import { formatBudget, parseBudget } from '../condition/budget.js';
 import { verifyCandidates } from '../condition/candidates.js';
 import { conditionSide, type ConditionedSide, type ConditionRequest } from '../condition/condition.js';
-import { scorePairs, trialSelector, type TrialScoring } from '../condition/trial-select.js';
+import { scorePairs, trialSelector, type TrialScoring, type TrialSelection } from '../condition/trial-select.js';
 import { wilsonInterval } from '../decode/statistics.js';
 import type { Budget } from '../condition/budget.js';
 import type { LatencyModel } from '../condition/latency.js';
@@ -180,15 +180,16 @@ export function runConditioning(input: CodeInput, words: Map<string, number[][]>
     const sup = words.get(side);
     if (!sup) throw new InputError(`${wordsLabel} has no words for side ${side}`);
     const candidates = verifyCandidates(h, sup, `${wordsLabel} (side ${side})`);
+    let selection: TrialSelection | undefined;
     const req: ConditionRequest = {
       side, h, candidates, basis: st.basis, budget: st.budget, latencyModel: st.latencyModel, iterations: st.iterations, strategy: st.strategy, seed: st.seed, symmetry: input.symmetry,
       trial: st.strategy === 'trial' && st.score && current
-        ? trialSelector(st.score, h.cols, (m) => (side === 'x' ? { dx: m, dz: current.z } : { dx: current.x, dz: m }))
+        ? trialSelector(st.score, h.cols, (m) => (side === 'x' ? { dx: m, dz: current.z } : { dx: current.x, dz: m }), (sel) => (selection = sel))
         : undefined,
     };
     const out = conditionSide(req);
     if (current && (side === 'x' || side === 'z')) current[side] = out.matrix;
-    return { side, out, candidates: candidates.words.length, dropped: candidates.dropped };
+    return { side, out, candidates: candidates.words.length, dropped: candidates.dropped, selection };
   });
   let score: { shots: number; points: ReturnType<typeof scoreTable> } | undefined;
   if (st.score && current && input.kind === 'css') {
@@ -207,7 +208,10 @@ export function runConditioning(input: CodeInput, words: Map<string, number[][]>
     added: bySide((r) => r.out.added.length),
     before: bySide((r) => r.out.before),
     after: bySide((r) => r.out.after),
-    sides: bySide((r) => ({ added: r.out.added.length, addedByWeight: r.out.addedByWeight, before: r.out.before, after: r.out.after, candidates: r.candidates, dropped: r.dropped })),
+    sides: bySide((r) => ({
+      added: r.out.added.length, addedByWeight: r.out.addedByWeight, before: r.out.before, after: r.out.after, candidates: r.candidates, dropped: r.dropped,
+      ...(r.selection ? { selection: r.selection } : {}),
+    })),
     ...(score ? { score } : {}),
     ...(prov ? { provenance: `${st.out}.provenance.json` } : {}),
   };

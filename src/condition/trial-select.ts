@@ -42,7 +42,22 @@ export function scorePairs(s: TrialScoring, pairs: readonly { label: string; dx:
  * scoring point; the prefix with the fewest failures wins (ties: the smaller one). `other` builds the
  * decoder pair for this side's candidate matrix (the other side's matrix stays fixed).
  */
-export function trialSelector(s: TrialScoring, cols: number, other: (thisSide: BitMatrix) => { dx: BitMatrix; dz: BitMatrix }): TrialSelector {
+/** What the trial strategy measured: failures of each nested prefix (summed over the scoring points), and the pick. */
+export interface TrialSelection {
+  /** Shots per prefix, summed over the scoring points. */
+  readonly shots: number;
+  readonly ps: readonly number[];
+  readonly prefixes: readonly { readonly added: number; readonly failures: number }[];
+  /** Added rows of the prefix kept. */
+  readonly chosen: number;
+}
+
+export function trialSelector(
+  s: TrialScoring,
+  cols: number,
+  other: (thisSide: BitMatrix) => { dx: BitMatrix; dz: BitMatrix },
+  onScored?: (selection: TrialSelection) => void,
+): TrialSelector {
   return (base, pool: Pool, fits) => {
     const order = cycleOrder(cols, base, pool);
     let longest: number[] = [];
@@ -55,11 +70,12 @@ export function trialSelector(s: TrialScoring, cols: number, other: (thisSide: B
       const rows = [...base, ...longest.slice(0, size).map((i) => pool.words[i]!)];
       return { label: `prefix ${size}`, ...other(fromRowVectors(cols, rows)) };
     });
-    const { failures } = scorePairs(s, pairs);
+    const { failures, shots } = scorePairs(s, pairs);
     let best = 0;
     failures.forEach((f, i) => {
       if (f < failures[best]!) best = i;
     });
+    onScored?.({ shots, ps: [...s.ps], prefixes: sizes.map((added, i) => ({ added, failures: failures[i]! })), chosen: sizes[best]! });
     return longest.slice(0, sizes[best]!);
   };
 }

@@ -126,6 +126,16 @@ export interface ConditionSideView {
   side: string;
   before?: ConditionStats;
   after?: ConditionStats;
+  /** What the trial strategy measured on this side, when it chose the rows. */
+  selection?: SelectionView;
+}
+
+/** Failures of nested prefixes of the ranked candidates on common samples, and the prefix kept. */
+export interface SelectionView {
+  shots: number;
+  ps: number[];
+  prefixes: { added: number; failures: number }[];
+  chosen: number;
 }
 
 export interface ConditionView {

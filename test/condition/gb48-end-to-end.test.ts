@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { buildFamily } from '../../src/codes/families/index.js';
 import { verifyCandidates } from '../../src/condition/candidates.js';
 import { conditionSide } from '../../src/condition/condition.js';
-import { scorePairs, trialSelector, type TrialScoring } from '../../src/condition/trial-select.js';
+import { scorePairs, trialSelector, type TrialScoring, type TrialSelection } from '../../src/condition/trial-select.js';
 import { runTrial } from '../../src/decode/runner.js';
 import { decoderMatrix, trialCode } from '../../src/decode/trial-engine.js';
 import { openPool } from '../../src/parallel/pool.js';
@@ -85,11 +85,19 @@ describe('trial strategy', () => {
       rows.push([...s].sort((x, y) => x - y));
     }
     const cands = verifyCandidates(c.hx, rows, 'pairs');
+    let selection: TrialSelection | undefined;
     const run = () => conditionSide({
       side: 'x', h: c.hx, candidates: cands, basis: 'all', budget: { extra: 4 }, latencyModel: 'serial', iterations: 3, strategy: 'trial', seed: 1,
-      trial: trialSelector(scoring, c.n, (m) => ({ dx: m, dz: c.hz })),
+      trial: trialSelector(scoring, c.n, (m) => ({ dx: m, dz: c.hz }), (sel) => (selection = sel)),
     });
     const out = run();
+    // the reported measurements: nested prefixes from none to the longest that fits, the kept one the fewest failures
+    expect(selection!.prefixes[0]!.added).toBe(0);
+    expect(selection!.prefixes.at(-1)!.added).toBe(4);
+    expect(selection!.chosen).toBe(out.added.length);
+    const kept = selection!.prefixes.find((p) => p.added === selection!.chosen)!;
+    expect(kept.failures).toBe(Math.min(...selection!.prefixes.map((p) => p.failures)));
+    expect(selection!.shots).toBe(600);
     expect(out.added.length).toBeLessThanOrEqual(4);
     expect(run().added).toEqual(out.added);
     // it is at least as good as adding nothing, on the scoring samples

@@ -133,6 +133,17 @@ describe('partial inputs', () => {
     expect(m.notes).toEqual(['run.json: part "distance" is not a recognised distance result; skipped', 'run.json: parts not shown: extra']);
   });
 
+  it('the trial strategy\'s measurements are shown per side, the kept prefix marked', () => {
+    const selection = { shots: 900, ps: [0.02, 0.04], prefixes: [{ added: 0, failures: 50 }, { added: 3, failures: 41 }, { added: 6, failures: 47 }], chosen: 3 };
+    const condition = { ...(fx.condition as object), strategy: 'trial', sides: { x: { selection } } };
+    const html = render([{ file: 'c.json', value: condition }]);
+    expect(html).toContain('Measured choice, side x');
+    expect(html).toContain('decoded on the same 900 shots at p = 0.02, 0.04');
+    const table = /<table class="selection">(.*?)<\/table>/.exec(html)![1]!;
+    const rows = [...table.matchAll(/<tr>(.*?)<\/tr>/g)].slice(1).map((m) => [...m[1]!.matchAll(/<td[^>]*>(.*?)<\/td>/g)].map((c) => c[1]));
+    expect(rows).toEqual([['0', '50', '0.0556', ''], ['3', '41', '0.0456', 'kept'], ['6', '47', '0.0522', '']]);
+  });
+
   it('a run bundle\'s version and configuration go to the provenance and its notes to the notes', () => {
     const bundle = { kind: 'overcheck-run', version: '9.9.9', config: { file: 'c.json', sha256: 'ab'.repeat(32) }, notes: ['search stopped at its time limit'], info: fx.info };
     const m = collectReport([{ file: 'run.json', value: bundle }], OPTIONS);

@@ -1,4 +1,4 @@
-import type { ConditionSideView, ConditionStats, ConditionView } from '../model.js';
+import type { ConditionSideView, ConditionStats, ConditionView, SelectionView } from '../model.js';
 import { cycleCount } from './cycles.js';
 import { count, isObject, str, type JsonObject } from './values.js';
 import { flatten } from './provenance.js';
@@ -43,6 +43,11 @@ export function readCondition(v: JsonObject): ConditionView {
       if (b || a) sides.push({ side: name, before: b, after: a });
     }
   }
+  const perSide = isObject(v['sides']) ? v['sides'] : {};
+  for (const sv of sides) {
+    const selection = readSelection(isObject(perSide[sv.side]) ? (perSide[sv.side] as JsonObject)['selection'] : undefined);
+    if (selection) sv.selection = selection;
+  }
   const added = v['added'];
   return {
     budget: budgetRows,
@@ -50,4 +55,21 @@ export function readCondition(v: JsonObject): ConditionView {
     added: count(added) ?? (isObject(added) ? Object.values(added).reduce<number>((s, x) => s + (count(x) ?? 0), 0) : undefined),
     strategy: str(v['strategy']),
   };
+}
+
+/** The trial strategy's measurements ({shots, ps, prefixes: [{added, failures}], chosen}), or undefined. */
+function readSelection(v: unknown): SelectionView | undefined {
+  if (!isObject(v) || !Array.isArray(v['prefixes'])) return undefined;
+  const shots = count(v['shots']);
+  const chosen = count(v['chosen']);
+  if (shots === undefined || chosen === undefined) return undefined;
+  const prefixes: SelectionView['prefixes'] = [];
+  for (const p of v['prefixes']) {
+    if (!isObject(p)) continue;
+    const added = count(p['added']);
+    const failures = count(p['failures']);
+    if (added !== undefined && failures !== undefined) prefixes.push({ added, failures });
+  }
+  const ps = Array.isArray(v['ps']) ? v['ps'].filter((x): x is number => typeof x === 'number') : [];
+  return prefixes.length > 0 ? { shots, ps, prefixes, chosen } : undefined;
 }

@@ -1,6 +1,6 @@
 import { escapeHtml } from '../escape.js';
 import { countText } from '../format.js';
-import type { ConditionStats, ConditionView, CycleCount } from '../model.js';
+import type { ConditionStats, ConditionView, CycleCount, SelectionView } from '../model.js';
 import { type Cell, section, table } from '../table.js';
 
 /** A quantity of the before/after table: its value as a number (for the change) and as an exact cell. */
@@ -69,6 +69,21 @@ export function budgetSection(c: ConditionView): string {
     if (rows.length === 0) continue;
     const heading = side.side ? `Before and after, side ${side.side}` : 'Before and after';
     body += `<h3>${escapeHtml(heading)}</h3>` + table(['', { text: 'before', num: true }, { text: 'after', num: true }, { text: 'change', num: true }], rows, { rowHeads: true, cls: 'before-after' });
+    if (side.selection) body += selectionTable(side.side, side.selection);
   }
   return section('budget', 'Conditioning budget', body);
+}
+
+/** The trial strategy's evidence: failures of each nested prefix on the same samples, the kept one marked. */
+function selectionTable(name: string, s: SelectionView): string {
+  const at = s.ps.length > 0 ? ` at p = ${s.ps.join(', ')}` : '';
+  const rows: Cell[][] = s.prefixes.map((p) => [
+    { text: countText(p.added), num: true },
+    { text: countText(p.failures), num: true },
+    { text: s.shots > 0 ? (p.failures / s.shots).toPrecision(3) : '–', num: true },
+    p.added === s.chosen ? 'kept' : '',
+  ]);
+  return `<h3>${escapeHtml(`Measured choice${name ? `, side ${name}` : ''}`)}</h3>`
+    + `<p class="meta">${escapeHtml(`nested prefixes of the candidates ranked by new short cycles, decoded on the same ${countText(s.shots)} shots${at}; the fewest failures is kept`)}</p>`
+    + table([{ text: 'added rows', num: true }, { text: 'failures', num: true }, { text: 'failures / shots', num: true }, ''], rows, { cls: 'selection' });
 }
