@@ -259,7 +259,7 @@ function combineWeight(m: Uint32Array, s: number, a: number, b: number, c: numbe
  */
 function sternStep(
   st: IsdState, W: number, p: number, l: number, winCols: Int32Array, proj: Int32Array, half: Int32Array, take: () => void, buf: SternBuffers,
-  onCollision?: () => void,
+  onCollision?: (a: number, b: number, c: number, d: number) => void,
 ): void {
   const { k, n, s, m, isInfo, rng, tmp } = st;
   const { chosen, xa, xb, next, head, stamp } = buf;
@@ -318,11 +318,19 @@ function sternStep(
       for (let t = head[key]!; t >= 0; t = next[t]!) {
         const a = xa[t]!;
         if (a < 0 && c < 0) continue; // the zero word
-        if (onCollision) onCollision();
+        if (onCollision) onCollision(a, xb[t]!, c, d);
         if (combineWeight(m, s, a, xb[t]!, c, d, tmp, W) <= W) take();
       }
     }
   }
+}
+
+/** The probe information set: one fresh elimination with stream 0 of the seed "probe". */
+function probeState(rows: number, cols: number, generator: Uint32Array, settings: IsdSettings): IsdState {
+  const task: IsdChunkTask = { rows, cols, generator, maxWeight: -1, settings, seed: 'probe', stream: 0, iterations: 0, maxWords: 0 };
+  const st = new IsdState(task, streamRng('probe', 0));
+  st.fresh();
+  return st;
 }
 
 /**
@@ -333,11 +341,7 @@ function sternStep(
  */
 export function systematicDensity(rows: number, cols: number, generator: Uint32Array): { mean: number; sparseRows: number } {
   if (rows === 0 || cols <= rows) return { mean: 0.5, sparseRows: 0 };
-  const task: IsdChunkTask = {
-    rows, cols, generator, maxWeight: 0, settings: { variant: 'lee-brickell', p: 1, window: 0, segment: 1 }, seed: 'probe', stream: 0, iterations: 0, maxWords: 0,
-  };
-  const st = new IsdState(task, streamRng('probe', 0));
-  st.fresh();
+  const st = probeState(rows, cols, generator, { variant: 'lee-brickell', p: 1, window: 0, segment: 1 });
   const weights: number[] = [];
   for (let r = 0; r < rows; r++) {
     let w = -1;
@@ -349,20 +353,99 @@ export function systematicDensity(rows: number, cols: number, generator: Uint32A
   return { mean, sparseRows: sparse / rows };
 }
 
+/** What the Lee–Brickell loop does on one information set (measured on the probe set by pairProbe). */
+export interface PairCounts {
+  /** Row pairs whose first two words pass the early weight test, plus the further words read for them. */
+  readonly words: number;
+  /** Rows, and sums of two rows, of weight ≤ W: each one goes to the word store. */
+  readonly keptRows: number;
+  readonly keptPairs: number;
+}
+
+/** What one Stern step does (measured on the probe set by sternProbe). */
+export interface SternCounts {
+  /** Pairs of half-sums agreeing on the window, the zero word excluded. */
+  readonly collisions: number;
+  /** Words combined for them before the weight passes W. */
+  readonly words: number;
+  /** Sums of weight ≤ W among them (each one goes to the word store). */
+  readonly kept: number;
+}
+
+
 /**
- * Collisions (pairs of half-sums agreeing on the window, the zero word excluded) of one Stern step with
- * parameters p and window l on the probe information set (stream 0 of seed "probe"): the planner's measured
- * stand-in for the random-code model, which badly underestimates sparse systematic forms. Deterministic.
+ * The work of the Lee–Brickell loop with weight bound W on the probe information set (stream 0 of seed
+ * "probe"): the same early test on the first two words of each pair, counted instead of kept. Sparse codes
+ * keep sparse systematic rows, whose pairs pass that test far more often than random ones. Deterministic.
  */
-export function sternProbeCollisions(rows: number, cols: number, generator: Uint32Array, p: number, l: number): number {
-  if (rows < 2 || cols - rows < l) return Infinity;
-  const task: IsdChunkTask = {
-    rows, cols, generator, maxWeight: -1, settings: { variant: 'stern', p, window: l, segment: 1 }, seed: 'probe', stream: 0, iterations: 0, maxWords: 0,
-  };
-  const st = new IsdState(task, streamRng('probe', 0));
-  st.fresh();
+export function pairProbe(rows: number, cols: number, generator: Uint32Array, W: number): PairCounts {
+  if (rows === 0 || cols <= rows) return { words: 0, keptRows: 0, keptPairs: 0 };
+  const st = probeState(rows, cols, generator, { variant: 'lee-brickell', p: 2, window: 0, segment: 1 });
+  const { k, s, m } = st;
+  let words = 0;
+  let keptRows = 0;
+  let keptPairs = 0;
+  for (let a = 0; a < k; a++) {
+    const ao = a * s;
+    let wt = 0;
+    for (let x = 0; x < s && wt <= W; x++) wt += popcount32(m[ao + x]!);
+    if (wt <= W) keptRows++;
+    for (let b = a + 1; b < k; b++) {
+      const bo = b * s;
+      let w2 = popcount32(m[ao]! ^ m[bo]!) + (s > 1 ? popcount32(m[ao + 1]! ^ m[bo + 1]!) : 0);
+      if (w2 > W) continue;
+      words++;
+      for (let x = 2; x < s && w2 <= W; x++) {
+        w2 += popcount32(m[ao + x]! ^ m[bo + x]!);
+        words++;
+      }
+      if (w2 <= W) keptPairs++;
+    }
+  }
+  return { words, keptRows, keptPairs };
+}
+
+/** Stern steps the probe averages over (fewer once it has counted PROBE_COLLISIONS collisions). */
+const PROBE_STEPS = 4;
+const PROBE_COLLISIONS = 1e5;
+
+/**
+ * The work of one Stern step with parameters p, window l and weight bound W, averaged over up to four
+ * steps (random halves and windows) on the probe information set (stream 0 of seed "probe"): window
+ * collisions, the words combined for them (the kernel stops once the weight passes W) and the sums kept.
+ * The planner's measured stand-in for the random-code model, which badly underestimates sparse systematic
+ * forms. Deterministic.
+ */
+export function sternProbe(rows: number, cols: number, generator: Uint32Array, W: number, p: number, l: number): SternCounts {
+  if (rows < 2 || cols - rows < l) return { collisions: Infinity, words: Infinity, kept: 0 };
+  const st = probeState(rows, cols, generator, { variant: 'stern', p, window: l, segment: 1 });
+  const { s, m } = st;
   let collisions = 0;
-  // maxWeight −1: no candidate passes the weight test, each collision costs one early-exit check
-  sternStep(st, -1, p, l, new Int32Array(l), new Int32Array(rows), new Int32Array(rows), () => {}, new SternBuffers(cols, rows, p, l), () => collisions++);
-  return collisions;
+  let words = 0;
+  let kept = 0;
+  const count = (a: number, b: number, c: number, d: number): void => {
+    collisions++;
+    let wt = 0;
+    for (let x = 0; x < s && wt <= W; x++) {
+      let v = 0;
+      if (a >= 0) v ^= m[a * s + x]!;
+      if (b >= 0) v ^= m[b * s + x]!;
+      if (c >= 0) v ^= m[c * s + x]!;
+      if (d >= 0) v ^= m[d * s + x]!;
+      wt += popcount32(v);
+      words++;
+    }
+    if (wt <= W) kept++;
+  };
+  const buf = new SternBuffers(cols, rows, p, l);
+  const winCols = new Int32Array(l);
+  const proj = new Int32Array(rows);
+  const half = new Int32Array(rows);
+  let steps = 0;
+  // maxWeight −1 for the step itself: nothing is taken, the count above weighs each collision with W
+  while (steps < PROBE_STEPS && collisions < PROBE_COLLISIONS) {
+    sternStep(st, -1, p, l, winCols, proj, half, () => {}, buf, count);
+    steps++;
+  }
+  return { collisions: collisions / steps, words: words / steps, kept: kept / steps };
 }

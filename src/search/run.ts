@@ -9,7 +9,7 @@ import type { GrayChunkResult, GrayChunkTask } from './gray.js';
 import type { IsdChunkResult, IsdChunkTask, IsdSettings } from './isd.js';
 import { groupElements, permuteWord } from './orbits.js';
 import { EXHAUSTIVE_BUDGET, missProbability, planSearch, type SearchPlan } from './plan.js';
-import { sternProbeCollisions, systematicDensity } from './isd.js';
+import { pairProbe, sternProbe, systematicDensity } from './isd.js';
 import { ORIGINAL_ROW, WordStore } from './store.js';
 
 /** The row space to search: rowspace(h), with h's own rows marked as original. */
@@ -149,7 +149,7 @@ export async function runSearch(target: SearchTarget, opts: SearchOptions, hooks
   const nEff = supportSize(basis.reduced);
   const plan = planSearch({
     n: nEff, k, maxWeight: W, method: opts.method, targetMiss: opts.targetMiss ?? DEFAULT_TARGET_MISS, density: probe.mean, sparseRows: probe.sparseRows,
-    sternCollisions: exhaustiveOnly ? undefined : memo((p, l) => sternProbeCollisions(k, n, basis.reduced.data, p, l)),
+    measured: exhaustiveOnly ? undefined : { pairs: pairProbe(k, n, basis.reduced.data, W), stern: memo((p, l) => sternProbe(k, n, basis.reduced.data, W, p, l)) },
   });
   const firstStream = opts.firstStream ?? 0;
   let nextStream = firstStream;
@@ -334,8 +334,8 @@ export function supportSize(m: BitMatrix): number {
   return seen.size;
 }
 
-function memo(f: (p: number, l: number) => number): (p: number, l: number) => number {
-  const cache = new Map<string, number>();
+function memo<T>(f: (p: number, l: number) => T): (p: number, l: number) => T {
+  const cache = new Map<string, T>();
   return (p, l) => {
     const key = `${p}:${l}`;
     let v = cache.get(key);
