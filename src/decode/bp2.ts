@@ -65,31 +65,14 @@ export class BinaryBp implements IterativeDecoder {
 
   /** One iteration in the configured schedule, then the hard decision. */
   iterate(): void {
-    const { g, state, prior, syndrome, scratch, maxLlr, hard } = this;
-    const scale = this.options.scale;
-    const vars = g.vars;
-    const B = g.edges;
-    const A = B + vars;
     if (this.options.schedule === 'flooding') {
-      // the accumulators hold the neutral value on entry (start, or the loop below), reset as they are read
-      if (this.ratioDomain) {
-        sumProductPass(g, state, B, A, syndrome, scale, Math.exp(maxLlr), scratch);
-        for (let v = 0; v < vars; v++) {
-          const b = prior[v]! * state[A + v]!;
-          state[B + v] = b;
-          hard[v] = b < 1 ? 1 : 0;
-          state[A + v] = 1;
-        }
-      } else {
-        minSumPass(g, state, B, A, syndrome, scale, maxLlr, scratch);
-        for (let v = 0; v < vars; v++) {
-          const b = prior[v]! + state[A + v]!;
-          state[B + v] = b;
-          hard[v] = b < 0 ? 1 : 0;
-          state[A + v] = 0;
-        }
-      }
+      if (this.ratioDomain) this.floodSumProduct();
+      else this.floodMinSum();
     } else {
+      const { g, state, syndrome, scratch, maxLlr } = this;
+      const scale = this.options.scale;
+      const B = g.edges;
+      const A = B + g.vars;
       if (this.ratioDomain) {
         const maxRatio = Math.exp(maxLlr);
         for (let c = 0; c < g.checks; c++) sumProductSerial(g, c, state, B, A, syndrome[c]!, scale, maxRatio, scratch);
@@ -99,6 +82,35 @@ export class BinaryBp implements IterativeDecoder {
       this.decide();
     }
     this.iterations++;
+  }
+
+  // flooding: the accumulators hold the neutral value on entry (start, or the loop below), reset as they are read
+  private floodSumProduct(): void {
+    const { g, state, prior, hard } = this;
+    const vars = g.vars;
+    const B = g.edges;
+    const A = B + vars;
+    sumProductPass(g, state, B, A, this.syndrome, this.options.scale, Math.exp(this.maxLlr), this.scratch);
+    for (let v = 0; v < vars; v++) {
+      const b = prior[v]! * state[A + v]!;
+      state[B + v] = b;
+      hard[v] = b < 1 ? 1 : 0;
+      state[A + v] = 1;
+    }
+  }
+
+  private floodMinSum(): void {
+    const { g, state, prior, hard } = this;
+    const vars = g.vars;
+    const B = g.edges;
+    const A = B + vars;
+    minSumPass(g, state, B, A, this.syndrome, this.options.scale, this.maxLlr, this.scratch);
+    for (let v = 0; v < vars; v++) {
+      const b = prior[v]! + state[A + v]!;
+      state[B + v] = b;
+      hard[v] = b < 0 ? 1 : 0;
+      state[A + v] = 0;
+    }
   }
 
   /** Run up to options.iterations iterations; returns the number run. */

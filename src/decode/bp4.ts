@@ -22,7 +22,7 @@ import { stackedTannerEdges, syndromeMatches, type TannerEdges } from './tanner-
  *
  * Sum-product runs on likelihood ratios (A and B become products e^A, e^B and the per-qubit quantity a
  * rational function of them: no exp or log at all); min-sum on LLRs (one exp and one log per qubit part and
- * iteration). See check-rules.ts.
+ * iteration, skipped while that part's input sum repeats exactly). See check-rules.ts.
  */
 export class QuaternaryBp implements IterativeDecoder {
   readonly n: number;
@@ -45,6 +45,11 @@ export class QuaternaryBp implements IterativeDecoder {
   /** Per-qubit Pauli priors: pI, pX, pY, pZ at 4j .. 4j+3 (probabilities), and their logarithms. */
   private readonly prob: Float64Array;
   private readonly logProb: Float64Array;
+  /** Per qubit: the last B and the Z part's log term for it, the last A and the X part's term (LLR domain). */
+  private readonly memo: Float64Array;
+  /** Beliefs and decisions for neutral sums, the starting point of every decode. */
+  private readonly startBelief: Float64Array;
+  private readonly startHard: Uint8Array;
   private readonly llr: Float64Array;
   private readonly scratch: CheckScratch;
   private syndrome: Uint8Array;
@@ -68,8 +73,12 @@ export class QuaternaryBp implements IterativeDecoder {
     this.llr = new Float64Array(2 * n);
     this.prob = new Float64Array(4 * n);
     this.logProb = new Float64Array(4 * n);
+    this.memo = new Float64Array(4 * n).fill(NaN);
+    this.startBelief = new Float64Array(2 * n);
+    this.startHard = new Uint8Array(2 * n);
     this.scratch = checkScratch(this.g.maxCheckDegree);
     this.syndrome = new Uint8Array(this.g.checks);
+    this.computeStart();
   }
 
   /** The same Pauli distribution [I, X, Y, Z] on every qubit. */
@@ -85,6 +94,8 @@ export class QuaternaryBp implements IterativeDecoder {
       this.prob[i] = probs[i]!;
       this.logProb[i] = Math.log(probs[i]!);
     }
+    this.memo.fill(NaN);
+    this.computeStart();
   }
 
   /** Reset for a new syndrome: one byte per check, X-type checks first (the array is referenced). */
@@ -93,7 +104,9 @@ export class QuaternaryBp implements IterativeDecoder {
     const unit = this.ratioDomain ? 1 : 0;
     this.c2v.fill(unit);
     this.acc.fill(unit);
-    for (let j = 0; j < this.n; j++) this.refresh(j);
+    // the beliefs and decisions for neutral sums depend on the priors only: computed in setPrior
+    this.belief.set(this.startBelief);
+    this.hard.set(this.startHard);
     this.iterations = 0;
   }
 
@@ -110,7 +123,7 @@ export class QuaternaryBp implements IterativeDecoder {
       } else {
         acc.fill(0);
         minSumPass(g, state, B, A, syndrome, scale, maxLlr, scratch);
-        for (let j = 0; j < n; j++) this.refresh(j);
+        this.refreshAllLlr();
       }
     } else {
       const { checkStart, edgeVar } = g;
@@ -177,7 +190,31 @@ export class QuaternaryBp implements IterativeDecoder {
     out[3] = wZ / total;
   }
 
-  /** refresh() of every qubit in the ratio domain, as one tight loop (the flooding hot path). */
+  /** Beliefs and decisions of every qubit for neutral sums (A = B = 0), into startBelief and startHard. */
+  private computeStart(): void {
+    const { n, prob, logProb, startBelief, startHard } = this;
+    const unit = this.ratioDomain ? 1 : 0;
+    for (let j = 0; j < n; j++) {
+      const pI = prob[4 * j]!;
+      const pX = prob[4 * j + 1]!;
+      const pY = prob[4 * j + 2]!;
+      const pZ = prob[4 * j + 3]!;
+      let pauli: number;
+      if (this.ratioDomain) {
+        startBelief[j] = unit * ratioTerm(unit, pI, pX, pZ, pY);
+        startBelief[n + j] = unit * ratioTerm(unit, pI, pZ, pX, pY);
+        pauli = decideRatio(unit, unit, pI, pX, pY, pZ);
+      } else {
+        startBelief[j] = logTerm(unit, pI, pX, pZ, pY) + unit;
+        startBelief[n + j] = logTerm(unit, pI, pZ, pX, pY) + unit;
+        pauli = decideLlr(unit, unit, logProb[4 * j]!, logProb[4 * j + 1]!, logProb[4 * j + 2]!, logProb[4 * j + 3]!);
+      }
+      startHard[j] = pauli & 1;
+      startHard[n + j] = pauli >> 1;
+    }
+  }
+
+  /** Both parts and the decision of every qubit in the ratio domain, as one loop (the flooding hot path). */
   private refreshAllRatio(): void {
     const { n, state, hard, prob } = this;
     const B = this.g.edges;
@@ -189,127 +226,138 @@ export class QuaternaryBp implements IterativeDecoder {
       const pX = prob[4 * j + 1]!;
       const pY = prob[4 * j + 2]!;
       const pZ = prob[4 * j + 3]!;
-      state[B + j] = a * (b >= 1 ? (pI + pX / b) / (pZ + pY / b) : (pI * b + pX) / (pZ * b + pY));
-      state[B + n + j] = b * (a >= 1 ? (pI + pZ / a) / (pX + pY / a) : (pI * a + pZ) / (pX * a + pY));
-      let x = 0;
-      let z = 0;
-      let best = pI * a * b;
-      const wX = pX * a;
-      if (wX > best) {
-        best = wX;
-        x = 1;
-      }
-      const wZ = pZ * b;
-      if (wZ > best) {
-        best = wZ;
-        x = 0;
-        z = 1;
-      }
-      if (pY > best) {
-        x = 1;
-        z = 1;
-      }
-      hard[j] = z;
-      hard[n + j] = x;
+      state[B + j] = a * ratioTerm(b, pI, pX, pZ, pY);
+      state[B + n + j] = b * ratioTerm(a, pI, pZ, pX, pY);
+      const pauli = decideRatio(a, b, pI, pX, pY, pZ);
+      hard[j] = pauli & 1;
+      hard[n + j] = pauli >> 1;
     }
   }
 
-  /** Both parts of qubit j from its accumulated messages, and its hard decision. */
-  private refresh(j: number): void {
-    this.refreshZ(j);
-    this.refreshX(j);
-    this.decideQubit(j);
+  /**
+   * The same on LLRs (the flooding min-sum hot path). The log term of a part depends only on the other part's
+   * sum, so it is kept with that sum in `memo` and reused while the sum repeats exactly (common once messages
+   * saturate): the same numbers with fewer exp and log calls.
+   */
+  private refreshAllLlr(): void {
+    const { n, state, hard, prob, logProb, memo } = this;
+    const B = this.g.edges;
+    const A = B + 2 * n;
+    for (let j = 0; j < n; j++) {
+      const a = state[A + j]!;
+      const b = state[A + n + j]!;
+      const pI = prob[4 * j]!;
+      const pX = prob[4 * j + 1]!;
+      const pY = prob[4 * j + 2]!;
+      const pZ = prob[4 * j + 3]!;
+      let tz = memo[4 * j + 1]!;
+      if (b !== memo[4 * j]) {
+        tz = logTerm(b, pI, pX, pZ, pY);
+        memo[4 * j] = b;
+        memo[4 * j + 1] = tz;
+      }
+      let tx = memo[4 * j + 3]!;
+      if (a !== memo[4 * j + 2]) {
+        tx = logTerm(a, pI, pZ, pX, pY);
+        memo[4 * j + 2] = a;
+        memo[4 * j + 3] = tx;
+      }
+      state[B + j] = tz + a;
+      state[B + n + j] = tx + b;
+      const pauli = decideLlr(a, b, logProb[4 * j]!, logProb[4 * j + 1]!, logProb[4 * j + 2]!, logProb[4 * j + 3]!);
+      hard[j] = pauli & 1;
+      hard[n + j] = pauli >> 1;
+    }
   }
 
-  /** Z part: ln[(pI + pX e^{−B}) / (pZ + pY e^{−B})] + A, or its ratio. */
+  /** Z part of qubit j: ln[(pI + pX e^{−B}) / (pZ + pY e^{−B})] + A, or its ratio. */
   private refreshZ(j: number): void {
-    const n = this.n;
     const p = this.prob;
     const a = this.acc[j]!;
-    const b = this.acc[n + j]!;
-    const pI = p[4 * j]!;
-    const pX = p[4 * j + 1]!;
-    const pY = p[4 * j + 2]!;
-    const pZ = p[4 * j + 3]!;
-    if (this.ratioDomain) {
-      // b = e^B: (pI + pX/b)/(pZ + pY/b), written so that neither a large nor a small b overflows
-      this.belief[j] = a * (b >= 1 ? (pI + pX / b) / (pZ + pY / b) : (pI * b + pX) / (pZ * b + pY));
-    } else if (b >= 0) {
-      const u = Math.exp(-b);
-      this.belief[j] = Math.log((pI + pX * u) / (pZ + pY * u)) + a;
-    } else {
-      const u = Math.exp(b);
-      this.belief[j] = Math.log((pI * u + pX) / (pZ * u + pY)) + a;
-    }
+    const b = this.acc[this.n + j]!;
+    if (this.ratioDomain) this.belief[j] = a * ratioTerm(b, p[4 * j]!, p[4 * j + 1]!, p[4 * j + 3]!, p[4 * j + 2]!);
+    else this.belief[j] = logTerm(b, p[4 * j]!, p[4 * j + 1]!, p[4 * j + 3]!, p[4 * j + 2]!) + a;
   }
 
-  /** X part: ln[(pI + pZ e^{−A}) / (pX + pY e^{−A})] + B, or its ratio. */
+  /** X part of qubit j: ln[(pI + pZ e^{−A}) / (pX + pY e^{−A})] + B, or its ratio. */
   private refreshX(j: number): void {
-    const n = this.n;
     const p = this.prob;
     const a = this.acc[j]!;
-    const b = this.acc[n + j]!;
-    const pI = p[4 * j]!;
-    const pX = p[4 * j + 1]!;
-    const pY = p[4 * j + 2]!;
-    const pZ = p[4 * j + 3]!;
-    if (this.ratioDomain) {
-      this.belief[n + j] = b * (a >= 1 ? (pI + pZ / a) / (pX + pY / a) : (pI * a + pZ) / (pX * a + pY));
-    } else if (a >= 0) {
-      const u = Math.exp(-a);
-      this.belief[n + j] = Math.log((pI + pZ * u) / (pX + pY * u)) + b;
-    } else {
-      const u = Math.exp(a);
-      this.belief[n + j] = Math.log((pI * u + pZ) / (pX * u + pY)) + b;
-    }
+    const b = this.acc[this.n + j]!;
+    if (this.ratioDomain) this.belief[this.n + j] = b * ratioTerm(a, p[4 * j]!, p[4 * j + 3]!, p[4 * j + 1]!, p[4 * j + 2]!);
+    else this.belief[this.n + j] = logTerm(a, p[4 * j]!, p[4 * j + 3]!, p[4 * j + 1]!, p[4 * j + 2]!) + b;
   }
 
   /** The most likely Pauli of qubit j (ties: I, then X, Z, Y). */
   private decideQubit(j: number): void {
-    const n = this.n;
     const a = this.acc[j]!;
-    const b = this.acc[n + j]!;
-    let x = 0;
-    let z = 0;
-    if (this.ratioDomain) {
-      // weights of I, X, Z, Y times e^{A+B}: pI·e^A·e^B, pX·e^A, pZ·e^B, pY
-      const p = this.prob;
-      let best = p[4 * j]! * a * b;
-      const wX = p[4 * j + 1]! * a;
-      if (wX > best) {
-        best = wX;
-        x = 1;
-      }
-      const wZ = p[4 * j + 3]! * b;
-      if (wZ > best) {
-        best = wZ;
-        x = 0;
-        z = 1;
-      }
-      if (p[4 * j + 2]! > best) {
-        x = 1;
-        z = 1;
-      }
-    } else {
-      const l = this.logProb;
-      let best = l[4 * j]!;
-      const sX = l[4 * j + 1]! - b;
-      if (sX > best) {
-        best = sX;
-        x = 1;
-      }
-      const sZ = l[4 * j + 3]! - a;
-      if (sZ > best) {
-        best = sZ;
-        x = 0;
-        z = 1;
-      }
-      if (l[4 * j + 2]! - a - b > best) {
-        x = 1;
-        z = 1;
-      }
-    }
-    this.hard[j] = z;
-    this.hard[n + j] = x;
+    const b = this.acc[this.n + j]!;
+    const p = this.ratioDomain ? this.prob : this.logProb;
+    const pauli = this.ratioDomain
+      ? decideRatio(a, b, p[4 * j]!, p[4 * j + 1]!, p[4 * j + 2]!, p[4 * j + 3]!)
+      : decideLlr(a, b, p[4 * j]!, p[4 * j + 1]!, p[4 * j + 2]!, p[4 * j + 3]!);
+    this.hard[j] = pauli & 1;
+    this.hard[this.n + j] = pauli >> 1;
   }
+}
+
+/*
+ * One part of a qubit given the sum s of the other part's messages, with the prior weights of the two Paulis
+ * that commute with its checks (p0, p1: I and the other part's Pauli) and of the two that do not (q0, q1).
+ * Z part: ratioTerm(e^B, pI, pX, pZ, pY); X part: ratioTerm(e^A, pI, pZ, pX, pY). Written so that neither a
+ * large nor a small sum overflows.
+ */
+
+/** (p0 + p1/s) / (q0 + q1/s) for a ratio s = e^{sum}. */
+function ratioTerm(s: number, p0: number, p1: number, q0: number, q1: number): number {
+  return s >= 1 ? (p0 + p1 / s) / (q0 + q1 / s) : (p0 * s + p1) / (q0 * s + q1);
+}
+
+/** ln[(p0 + p1 e^{−s}) / (q0 + q1 e^{−s})] for an LLR sum s. */
+function logTerm(s: number, p0: number, p1: number, q0: number, q1: number): number {
+  if (s >= 0) {
+    const u = Math.exp(-s);
+    return Math.log((p0 + p1 * u) / (q0 + q1 * u));
+  }
+  const u = Math.exp(s);
+  return Math.log((p0 * u + p1) / (q0 * u + q1));
+}
+
+/**
+ * The most likely Pauli from the sums (ratios a = e^A, b = e^B) and the prior probabilities, as z + 2x (ties:
+ * I, then X, Z, Y): the weights of I, X, Z, Y times e^{A+B} are pI·a·b, pX·a, pZ·b, pY.
+ */
+function decideRatio(a: number, b: number, pI: number, pX: number, pY: number, pZ: number): number {
+  let pauli = 0;
+  let best = pI * a * b;
+  const wX = pX * a;
+  if (wX > best) {
+    best = wX;
+    pauli = 2;
+  }
+  const wZ = pZ * b;
+  if (wZ > best) {
+    best = wZ;
+    pauli = 1;
+  }
+  if (pY > best) pauli = 3;
+  return pauli;
+}
+
+/** The same from LLR sums A, B and the logarithms of the prior probabilities. */
+function decideLlr(a: number, b: number, lI: number, lX: number, lY: number, lZ: number): number {
+  let pauli = 0;
+  let best = lI;
+  const sX = lX - b;
+  if (sX > best) {
+    best = sX;
+    pauli = 2;
+  }
+  const sZ = lZ - a;
+  if (sZ > best) {
+    best = sZ;
+    pauli = 1;
+  }
+  if (lY - a - b > best) pauli = 3;
+  return pauli;
 }

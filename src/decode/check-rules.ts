@@ -20,6 +20,11 @@ import type { TannerEdges } from './tanner-edges.js';
  * e at state[e], the posterior (belief) of variable v at state[B + v], the accumulated product or sum of its
  * messages at state[A + v]. One array instead of three makes V8's inner loops markedly faster (it re-checks
  * each typed array at every turn of a loop); the gather loop of sum-product also takes two edges per turn.
+ *
+ * V8 notes (see DEVELOPERS.md, "Trial decoding" → "Speed"): numeric parameters are copied into locals
+ * (`x * 1`, `x | 0`) before the loops. A parameter that meets a computed double in a conditional (a clamp,
+ * `den > 0 ? … : maxRatio`) otherwise makes V8 keep that value boxed, allocating a heap number per edge,
+ * and re-read and re-check the parameter at every turn.
  */
 export type CheckRule = 'sum-product' | 'min-sum';
 
@@ -62,7 +67,10 @@ export function sumProductPass(
   s: CheckScratch,
 ): void {
   const { checks, checkStart, edgeVar } = g;
-  const minRatio = 1 / maxRatio;
+  const bOff = B | 0;
+  const aOff = A | 0;
+  const maxR = maxRatio * 1;
+  const minR = 1 / maxR;
   const scaled = scale !== 1;
   let e0 = 0;
   for (let c = 0; c < checks; c++) {
@@ -73,9 +81,9 @@ export function sumProductPass(
     let total = syndrome[c] !== 0 ? -1 : 1;
     let e = e0;
     for (; e + 1 < e1; e += 2) {
-      const p0 = state[B + edgeVar[e]!]!;
+      const p0 = state[bOff + edgeVar[e]!]!;
       const m0 = state[e]!;
-      const p1 = state[B + edgeVar[e + 1]!]!;
+      const p1 = state[bOff + edgeVar[e + 1]!]!;
       const m1 = state[e + 1]!;
       const t0 = (p0 - m0) / (p0 + m0);
       const t1 = (p1 - m1) / (p1 + m1);
@@ -84,7 +92,7 @@ export function sumProductPass(
       total *= t0 * t1;
     }
     if (e < e1) {
-      const p0 = state[B + edgeVar[e]!]!;
+      const p0 = state[bOff + edgeVar[e]!]!;
       const m0 = state[e]!;
       const t0 = (p0 - m0) / (p0 + m0);
       state[e] = t0;
@@ -95,23 +103,23 @@ export function sumProductPass(
       for (e = e0; e < e1; e++) {
         let r = state[e]!;
         if (scaled) r = Math.pow(r, scale);
-        r = r > maxRatio ? maxRatio : r < minRatio ? minRatio : r;
+        r = r > maxR ? maxR : r < minR ? minR : r;
         state[e] = r;
-        const v = A + edgeVar[e]!;
+        const v = aOff + edgeVar[e]!;
         state[v] = state[v]! * r;
       }
     } else {
+      // With a = |t_k| and u = T·sign(t_k) = y·|t_k| the reply is (a + u)/(a − u). Every |t| ≤ 1 and a
+      // rounded product never exceeds its factors, so |T| ≤ |t_k| and a − u ≥ 0 exactly; negating numerator
+      // and denominator is exact, so (t_k + T)/(t_k − T) is the same number without branching on the sign
+      // of t_k. A zero denominator (y = 1 to working precision) is a saturated reply.
       for (e = e0; e < e1; e++) {
-        // a = |t_k|, u = T·sign(t_k) = y·|t_k|: r = (a + u)/(a − u), where a − u ≥ 0 up to rounding;
-        // a − u ≤ 0 means y = 1 to working precision, a saturated reply
         const tk = state[e]!;
-        const a = tk < 0 ? -tk : tk;
-        const u = tk < 0 ? -total : total;
-        const den = a - u;
-        let r = den > 0 ? (a + u) / den : maxRatio;
-        r = r > maxRatio ? maxRatio : r < minRatio ? minRatio : r;
+        const den = tk - total;
+        let r = den !== 0 ? (tk + total) / den : maxR;
+        r = r > maxR ? maxR : r < minR ? minR : r;
         state[e] = r;
-        const v = A + edgeVar[e]!;
+        const v = aOff + edgeVar[e]!;
         state[v] = state[v]! * r;
       }
     }
@@ -155,6 +163,10 @@ export function minSumPass(
   _s: CheckScratch,
 ): void {
   const { checks, checkStart, edgeVar } = g;
+  const bOff = B | 0;
+  const aOff = A | 0;
+  const sc = scale * 1;
+  const maxM = maxLlr * 1;
   let e0 = 0;
   for (let c = 0; c < checks; c++) {
     const e1 = checkStart[c + 1]!;
@@ -164,7 +176,7 @@ export function minSumPass(
     let sign = syndrome[c]!;
     // the incoming message is parked in state[e] until the reply replaces it
     for (let e = e0; e < e1; e++) {
-      const v = state[B + edgeVar[e]!]! - state[e]!;
+      const v = state[bOff + edgeVar[e]!]! - state[e]!;
       state[e] = v;
       let a = v;
       if (v < 0) {
@@ -177,15 +189,15 @@ export function minSumPass(
         arg = e;
       } else if (a < min2) min2 = a;
     }
-    let m1 = scale * min1;
-    if (m1 > maxLlr) m1 = maxLlr;
-    let m2 = scale * min2;
-    if (m2 > maxLlr) m2 = maxLlr;
+    let m1 = sc * min1;
+    if (m1 > maxM) m1 = maxM;
+    let m2 = sc * min2;
+    if (m2 > maxM) m2 = maxM;
     for (let e = e0; e < e1; e++) {
       const mag = e === arg ? m2 : m1;
       const m = (sign ^ (state[e]! < 0 ? 1 : 0)) !== 0 ? -mag : mag;
       state[e] = m;
-      const v = A + edgeVar[e]!;
+      const v = aOff + edgeVar[e]!;
       state[v] = state[v]! + m;
     }
     e0 = e1;
@@ -210,7 +222,8 @@ export function sumProductSerial(
 ): void {
   const { checkStart, edgeVar } = g;
   const { x, old } = s;
-  const minRatio = 1 / maxRatio;
+  const maxR = maxRatio * 1;
+  const minR = 1 / maxR;
   const e0 = checkStart[c]!;
   const d = checkStart[c + 1]! - e0;
   let total = syndromeBit !== 0 ? -1 : 1;
@@ -232,10 +245,10 @@ export function sumProductSerial(
       const a = tk < 0 ? -tk : tk;
       const u = tk < 0 ? -total : total;
       const den = a - u;
-      r = den > 0 ? (a + u) / den : maxRatio;
+      r = den > 0 ? (a + u) / den : maxR;
     }
     if (scale !== 1) r = Math.pow(r, scale);
-    r = r > maxRatio ? maxRatio : r < minRatio ? minRatio : r;
+    r = r > maxR ? maxR : r < minR ? minR : r;
     state[e0 + k] = r;
     const v = edgeVar[e0 + k]!;
     state[B + v] = x[k]! * r;
@@ -282,10 +295,11 @@ export function minSumSerial(
       arg = k;
     } else if (a < min2) min2 = a;
   }
+  const maxM = maxLlr * 1;
   let m1 = scale * min1;
-  if (m1 > maxLlr) m1 = maxLlr;
+  if (m1 > maxM) m1 = maxM;
   let m2 = scale * min2;
-  if (m2 > maxLlr) m2 = maxLlr;
+  if (m2 > maxM) m2 = maxM;
   for (let k = 0; k < d; k++) {
     const mag = k === arg ? m2 : m1;
     const m = (sign ^ (x[k]! < 0 ? 1 : 0)) !== 0 ? -mag : mag;

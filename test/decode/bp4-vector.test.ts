@@ -84,3 +84,50 @@ describe('scalar-message BP4 equals vector-message BP4, message for message', ()
     compare(built.code.hx, built.code.hz, prior, 99, 'flooding', 8);
   });
 });
+
+describe('min-sum BP4 qubit update', () => {
+  // source: Kuo & Lai, "Refined belief propagation decoding of sparse-graph quantum codes", IEEE JSAIT 1(2), 2020:
+  // the Z part of qubit j sends ln[(pI + pX e^{-B_j}) / (pZ + pY e^{-B_j})] + A_j (X part: Z and X swapped), exactly,
+  // whatever the check rule. The decoder reuses these terms while a sum repeats. With the zero syndrome on a code
+  // whose qubits have three checks a side, min-sum messages saturate at the clamp, so the sums of the last
+  // iterations at p = 0.05 (3 × 50) recur at once under a prior so strong that its first messages saturate too:
+  // a reuse that ignored the change of prior would show here.
+  it('is the exact marginal after every iteration, also after the prior changed', () => {
+    const built = buildFamily('bb:l=6,m=6,A=x^3+y+y^2,B=y^3+x+x^2');
+    if (built.kind !== 'css') throw new Error('expected a CSS code');
+    const { hx, hz } = built.code;
+    const n = hx.cols;
+    const opts = { rule: 'min-sum' as const, scale: 0.75, schedule: 'flooding' as const, iterations: 30, earlyStop: false };
+    const reused = new QuaternaryBp(hx, hz, opts);
+    const zero = new Uint8Array(hx.rows + hz.rows);
+    reused.setUniformPrior(pauliProbabilities({ model: 'depolarizing', p: 0.05 }));
+    reused.decode(zero);
+    expect(reused.acc[0]).toBe(3 * reused.maxLlr);
+    const rng = streamRng('bp4-min-sum-memo', 0);
+    for (const p of [1e-30, 0.12]) {
+      const pauli = pauliProbabilities({ model: 'depolarizing', p });
+      const [pI, pX, pY, pZ] = pauli as [number, number, number, number];
+      reused.setUniformPrior(pauli);
+      const fresh = new QuaternaryBp(hx, hz, opts);
+      fresh.setUniformPrior(pauli);
+      for (let k = 0; k < 3; k++) {
+        const s = k === 0 ? zero : Uint8Array.from({ length: zero.length }, () => (rng.next() < 0.2 ? 1 : 0));
+        reused.start(s);
+        fresh.start(s);
+        for (let t = 1; t <= 30; t++) {
+          reused.iterate();
+          fresh.iterate();
+          for (let j = 0; j < n; j++) {
+            const a = reused.acc[j]!;
+            const b = reused.acc[n + j]!;
+            const label = `p ${p}, shot ${k}, iteration ${t}, qubit ${j}`;
+            expect(reused.belief[j], `${label}, Z part`).toBeCloseTo(Math.log((pI + pX * Math.exp(-b)) / (pZ + pY * Math.exp(-b))) + a, 9);
+            expect(reused.belief[n + j], `${label}, X part`).toBeCloseTo(Math.log((pI + pZ * Math.exp(-a)) / (pX + pY * Math.exp(-a))) + b, 9);
+          }
+          expect(Array.from(reused.state)).toEqual(Array.from(fresh.state));
+          expect(Array.from(reused.hard)).toEqual(Array.from(fresh.hard));
+        }
+      }
+    }
+  });
+});

@@ -2,7 +2,9 @@
  * Reference C implementation of the flooding BP update used by src/decode (check-rules.ts, bp2.ts, bp4.ts):
  * the same edge layout (CSR in check order), the same formulas (sum-product on likelihood ratios, one division
  * per edge for the reply, or scaled min-sum on LLRs; BP4 variable update rational in the ratio domain,
- * one exp and one log per qubit part on LLRs), the same clamps, the same early stop. Used only by scripts/bench/trial.ts to measure how far the TypeScript kernel is from C.
+ * one exp and one log per qubit part on LLRs, reused while that part's sum repeats; BP4's starting state
+ * computed once), the same clamps, the same early stop: every saving of the TypeScript kernels is made here
+ * too. Used only by scripts/bench/trial.ts to measure how far the TypeScript kernel is from C.
  *
  * Input file (little endian), written by the bench:
  *   int32 kind (0 = bp2, 1 = bp4), rule (0 = sum-product, 1 = min-sum), iterations, earlyStop, n, mx, mz,
@@ -38,7 +40,7 @@ static void leave_one_out(double *a, int d, int flip) {
   for (int k = d - 1; k >= 0; k--) { double y = a[k] * backward; a[k] = (1 + y) / (1 - y); backward *= ts[k]; }
 }
 
-/* sum-product pass in the ratio domain: t = (P - C)/(P + C), reply (|t| + y|t|)/(|t| - y|t|) with y = T/t, products at variables */
+/* sum-product pass in the ratio domain: t = (P - C)/(P + C), reply (t + T)/(t - T) with T the signed product, products at variables */
 static void sp_pass(const graph *g, const double *post, double *c2v, double *prod, const uint8_t *syn) {
   const double maxR = g->maxRatio, minR = 1 / g->maxRatio;
   const int32_t *start = g->start, *var = g->var;
@@ -69,10 +71,10 @@ static void sp_pass(const graph *g, const double *post, double *c2v, double *pro
         prod[var[e]] *= r;
       }
     } else {
-      for (e = e0; e < e1; e++) {
+      for (e = e0; e < e1; e++) { /* |T| <= |t_k|, so (|t|+u)/(|t|-u) = (t+T)/(t-T), a zero denominator saturating */
         double tk = c2v[e];
-        double a = tk < 0 ? -tk : tk, u = tk < 0 ? -total : total, den = a - u;
-        double r = den > 0 ? (a + u) / den : maxR;
+        double den = tk - total;
+        double r = den != 0 ? (tk + total) / den : maxR;
         r = r > maxR ? maxR : r < minR ? minR : r;
         c2v[e] = r;
         prod[var[e]] *= r;
@@ -140,37 +142,54 @@ static int bp2(const graph *g, const uint8_t *syn, double prior, int iters, int 
   return it;
 }
 
-static int bp4(const graph *g, int n, const uint8_t *syn, const double *pr, const double *lp, int iters, int early, int minsum,
-               double scale, double *c2v, double *post, double *acc, uint8_t *hard) {
-  const double unit = minsum ? 0 : 1;
+/* log term of one qubit part given the other part's LLR sum s (see bp4.ts logTerm) */
+static double log_term(double s, double p0, double p1, double q0, double q1) {
+  if (s >= 0) { double u = exp(-s); return log((p0 + p1 * u) / (q0 + q1 * u)); }
+  double u = exp(s);
+  return log((p0 * u + p1) / (q0 * u + q1));
+}
+
+/* beliefs and decisions of every qubit from the sums acc (what bp4.ts does after each pass); memo (4n, min-sum):
+   the last sum seen by each part and its log term, reused while the sum repeats exactly */
+static void bp4_refresh(int n, const double *pr, const double *lp, int minsum, const double *acc, double *post,
+                        uint8_t *hard, double *memo) {
   const double pI = pr[0], pX = pr[1], pY = pr[2], pZ = pr[3];
+  for (int j = 0; j < n; j++) {
+    double a = acc[j], b = acc[n + j];
+    int x = 0, z = 0;
+    if (!minsum) {
+      post[j] = a * (b >= 1 ? (pI + pX / b) / (pZ + pY / b) : (pI * b + pX) / (pZ * b + pY));
+      post[n + j] = b * (a >= 1 ? (pI + pZ / a) / (pX + pY / a) : (pI * a + pZ) / (pX * a + pY));
+      double best = pI * a * b, wX = pX * a, wZ = pZ * b;
+      if (wX > best) { best = wX; x = 1; }
+      if (wZ > best) { best = wZ; x = 0; z = 1; }
+      if (pY > best) { x = 1; z = 1; }
+    } else {
+      double *m = memo + 4 * j;
+      if (b != m[0]) { m[0] = b; m[1] = log_term(b, pI, pX, pZ, pY); }
+      if (a != m[2]) { m[2] = a; m[3] = log_term(a, pI, pZ, pX, pY); }
+      post[j] = m[1] + a;
+      post[n + j] = m[3] + b;
+      double best = lp[0], sx = lp[1] - b, sz = lp[3] - a, sy = lp[2] - a - b;
+      if (sx > best) { best = sx; x = 1; }
+      if (sz > best) { best = sz; x = 0; z = 1; }
+      if (sy > best) { x = 1; z = 1; }
+    }
+    hard[j] = z;
+    hard[n + j] = x;
+  }
+}
+
+/* post0/hard0: the state for neutral sums, computed once (bp4.ts: setPrior) */
+static int bp4(const graph *g, int n, const uint8_t *syn, const double *post0, const uint8_t *hard0, const double *pr,
+               const double *lp, int iters, int early, int minsum, double scale, double *c2v, double *post, double *acc,
+               uint8_t *hard, double *memo) {
+  const double unit = minsum ? 0 : 1;
   for (int e = 0; e < g->edges; e++) c2v[e] = unit;
-  for (int v = 0; v < 2 * n; v++) acc[v] = unit;
+  memcpy(post, post0, sizeof(double) * 2 * n);
+  memcpy(hard, hard0, 2 * n);
   int it = 0;
   for (;;) {
-    for (int j = 0; j < n; j++) {
-      double a = acc[j], b = acc[n + j];
-      int x = 0, z = 0;
-      if (!minsum) {
-        post[j] = a * (b >= 1 ? (pI + pX / b) / (pZ + pY / b) : (pI * b + pX) / (pZ * b + pY));
-        post[n + j] = b * (a >= 1 ? (pI + pZ / a) / (pX + pY / a) : (pI * a + pZ) / (pX * a + pY));
-        double best = pI * a * b, wX = pX * a, wZ = pZ * b;
-        if (wX > best) { best = wX; x = 1; }
-        if (wZ > best) { best = wZ; x = 0; z = 1; }
-        if (pY > best) { x = 1; z = 1; }
-      } else {
-        if (b >= 0) { double u = exp(-b); post[j] = log((pI + pX * u) / (pZ + pY * u)) + a; }
-        else { double u = exp(b); post[j] = log((pI * u + pX) / (pZ * u + pY)) + a; }
-        if (a >= 0) { double u = exp(-a); post[n + j] = log((pI + pZ * u) / (pX + pY * u)) + b; }
-        else { double u = exp(a); post[n + j] = log((pI * u + pZ) / (pX * u + pY)) + b; }
-        double best = lp[0], sx = lp[1] - b, sz = lp[3] - a, sy = lp[2] - a - b;
-        if (sx > best) { best = sx; x = 1; }
-        if (sz > best) { best = sz; x = 0; z = 1; }
-        if (sy > best) { x = 1; z = 1; }
-      }
-      hard[j] = z;
-      hard[n + j] = x;
-    }
     if (early && matches(g, hard, syn)) break;
     if (it == iters) break;
     if (minsum) {
@@ -181,6 +200,7 @@ static int bp4(const graph *g, int n, const uint8_t *syn, const double *pr, cons
       sp_pass(g, post, c2v, acc, syn);
     }
     it++;
+    bp4_refresh(n, pr, lp, minsum, acc, post, hard, memo);
   }
   return it;
 }
@@ -226,7 +246,12 @@ int main(int argc, char **argv) {
   for (int c = 0; c < g4.checks; c++) if (st[c + 1] - st[c] > maxd) maxd = st[c + 1] - st[c];
   xs = malloc(8 * maxd); ts = malloc(8 * maxd);
   double *c2v = malloc(8 * (ex + ez + 1)), *post = malloc(8 * 2 * n), *sums = malloc(8 * 2 * n);
-  uint8_t *hard = malloc(2 * n);
+  uint8_t *hard = malloc(2 * n), *hard0 = malloc(2 * n);
+  double *post0 = malloc(8 * 2 * n), *memo = malloc(8 * 4 * n);
+  for (int k = 0; k < 4 * n; k++) memo[k] = NAN;
+  for (int v = 0; v < 2 * n; v++) sums[v] = rule ? 0 : 1;
+  bp4_refresh(n, pr, lp, rule, sums, post0, hard0, memo);
+  for (int k = 0; k < 4 * n; k++) memo[k] = NAN;
   long total = 0, check = 0;
   double t0 = now();
   for (int s = 0; s < shots; s++) {
@@ -238,7 +263,7 @@ int main(int argc, char **argv) {
       for (int v = 0; v < n; v++) check += hard[v] * (v + 7);
       total += (long)a * ex + (long)b * ez;
     } else {
-      total += (long)bp4(&g4, n, ss, pr, lp, iters, early, rule, scale, c2v, post, sums, hard) * (ex + ez);
+      total += (long)bp4(&g4, n, ss, post0, hard0, pr, lp, iters, early, rule, scale, c2v, post, sums, hard, memo) * (ex + ez);
       for (int v = 0; v < 2 * n; v++) check += hard[v] * (v + 1);
     }
   }
