@@ -211,7 +211,7 @@ export function planSearch(req: PlanRequest): SearchPlan {
   const stride = Math.ceil(n / 32);
   const exhaustiveWork = 2 ** k * stride;
   if (req.method === 'exhaustive' || (req.method === 'auto' && exhaustiveWork <= EXHAUSTIVE_BUDGET)) {
-    if (k > 48) throw new RangeError(`exhaustive enumeration of 2^${k} words is out of reach`);
+    if (k > 48) throw new InputError(`--method exhaustive: enumerating all 2^${k} words of the row space is out of reach (at most 2^48); use --method isd or auto`);
     return {
       method: 'exhaustive',
       reason: req.method === 'exhaustive' ? 'requested' : `2^${k} combinations × ${stride} words fits the exhaustive budget`,

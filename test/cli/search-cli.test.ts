@@ -53,6 +53,7 @@ describe('search command', () => {
       ['search', '--family', 'toric:L=3', '--side', 'w'],
       ['search', '--family', 'toric:L=3', '--side', 'x', '--target-miss', 'abc'],
       ['search', '--family', 'toric:L=3', '--side', 'x', '--symmetry', 'blocks=2,l=4'],
+      ['search', '--family', 'bb:l=12,m=6,A=x^3+y+y^2,B=y^3+x+x^2', '--side', 'x', '--method', 'exhaustive'],
     ]) {
       const r = run(args);
       expect(r.code).toBe(2);
