@@ -5,10 +5,9 @@
  * own output and the merge of several shards both go through `sideFromRecord`, so N merged shards give
  * exactly the report of one process running the whole plan (`--shard 0/1`).
  */
-import type { IsdSettings } from '../search/isd.js';
 import { boundForLevels, type EnumerationGoal, type EnumerationPlan, remainingCost } from './brouwer-zimmermann.js';
 import type { SideReport, SideStop } from './result.js';
-import { rangeMiss, type IsdStage } from './upper.js';
+import { type FixedIsdPlan, rangeMiss, type IsdStage } from './upper.js';
 import { compareSupports } from './words.js';
 
 /** One (set, level) of the Brouwer–Zimmermann enumeration, cut into `chunks` numbered chunks. */
@@ -34,15 +33,7 @@ export interface FixedPlan {
   /** 'exhaustive': all 2^dim codewords (method exhaustive, or auto for small dimension); else 'search'. */
   readonly branch: 'exhaustive' | 'search';
   readonly exhaustive: { readonly chunks: number; readonly total: number; readonly maxWeight: number } | null;
-  readonly isd: {
-    readonly settings: IsdSettings;
-    readonly maxWeight: number;
-    readonly iterations: number;
-    readonly chunkIterations: number;
-    readonly chunks: number;
-    readonly rule: 'target-miss' | 'iterations';
-    readonly targetMiss: number | null;
-  } | null;
+  readonly isd: FixedIsdPlan | null;
   /** Units in schedule order from the start levels until the goal is met for the start's upper bound. */
   readonly enumeration: { readonly goal: EnumerationGoal; readonly maxWeight: number; readonly units: readonly FixedPlanUnit[]; readonly chunks: number } | null;
 }
